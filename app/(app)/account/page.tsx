@@ -1,0 +1,28 @@
+import type { Metadata } from "next";
+import { getTranslations } from "next-intl/server";
+import { PageHeader, Panel } from "@/components/ui/panel";
+import { requirePageActor } from "@/lib/session";
+import { ApiTokens } from "./api-tokens";
+import { ProfileForm } from "./profile-form";
+
+export async function generateMetadata(): Promise<Metadata> {
+  return { title: (await getTranslations("account"))("title") };
+}
+
+export default async function AccountPage() {
+  const actor = await requirePageActor();
+  const t = await getTranslations();
+  return (
+    <>
+      <PageHeader title={t("account.title")} intro={`${actor.email} · ${t(`roles.${actor.role}.name`)}`} />
+      <div className="grid gap-6 lg:grid-cols-[1fr_2fr]">
+        <Panel title={t("account.profile")}>
+          <ProfileForm name={actor.name} unitSystem={actor.unitSystem} />
+        </Panel>
+        <Panel title={t("account.tokens.title")} intro={t("account.tokens.intro")}>
+          <ApiTokens />
+        </Panel>
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,46 @@
+"use client";
+
+import { useTranslations } from "next-intl";
+import { useActionState } from "react";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { Notice } from "@/components/ui/notice";
+import { initialFormState } from "@/lib/actions/form-state";
+import { roles } from "@/lib/permissions";
+import { inviteUserAction } from "./actions";
+
+export function InviteForm() {
+  const t = useTranslations();
+  const [state, action, pending] = useActionState(inviteUserAction, initialFormState);
+  // A successful invitation clears the form (new key); a failed one keeps what was typed.
+  const formKey = state.status === "success" ? state.message : "form";
+  return (
+    <form key={formKey} action={action} className="grid gap-4 md:grid-cols-[1fr_1fr_12rem_auto] md:items-start" noValidate>
+      {state.message ? (
+        <Notice tone={state.status === "success" ? "success" : "error"} className="md:col-span-4">
+          {state.message}
+        </Notice>
+      ) : null}
+      <Field id="invite-name" label={t("admin.invite.name")} errors={state.fieldErrors?.name}>
+        {(aria) => <input {...aria} name="name" autoComplete="off" defaultValue={state.status === "error" ? state.values?.name : ""} />}
+      </Field>
+      <Field id="invite-email" label={t("admin.invite.email")} errors={state.fieldErrors?.email}>
+        {(aria) => <input {...aria} name="email" type="email" autoComplete="off" defaultValue={state.status === "error" ? state.values?.email : ""} />}
+      </Field>
+      <Field id="invite-role" label={t("admin.invite.role")} errors={state.fieldErrors?.role}>
+        {(aria) => (
+          <select {...aria} name="role" defaultValue={state.status === "error" ? state.values?.role : "designer"}>
+            {roles.map((role) => (
+              <option key={role} value={role}>
+                {t(`roles.${role}.name`)}
+              </option>
+            ))}
+          </select>
+        )}
+      </Field>
+      <Button type="submit" disabled={pending} className="md:mt-6">
+        {pending ? t("admin.invite.submitting") : t("admin.invite.submit")}
+      </Button>
+    </form>
+  );
+}

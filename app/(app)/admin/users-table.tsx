@@ -1,0 +1,187 @@
+"use client";
+
+import {
+  columnFilteringFeature,
+  createColumnHelper,
+  createFilteredRowModel,
+  createSortedRowModel,
+  filterFn_includesString,
+  flexRender,
+  globalFilteringFeature,
+  rowSortingFeature,
+  sortFn_alphanumeric,
+  sortFn_text,
+  tableFeatures,
+  useTable,
+} from "@tanstack/react-table";
+import { useTranslations } from "next-intl";
+import { useActionState, useMemo, useState } from "react";
+import { Button } from "@/components/ui/button";
+import { cn } from "@/components/ui/cn";
+import { Notice } from "@/components/ui/notice";
+import { initialFormState } from "@/lib/actions/form-state";
+import type { UserDto } from "@/lib/data/users";
+import { roles } from "@/lib/permissions";
+import { userRowAction } from "./actions";
+
+const features = tableFeatures({
+  rowSortingFeature,
+  columnFilteringFeature,
+  globalFilteringFeature,
+  sortedRowModel: createSortedRowModel(),
+  filteredRowModel: createFilteredRowModel(),
+  sortFns: { alphanumeric: sortFn_alphanumeric, text: sortFn_text },
+  filterFns: { includesString: filterFn_includesString },
+});
+const column = createColumnHelper<typeof features, UserDto>();
+
+export function UsersTable({ users, selfId }: { users: UserDto[]; selfId: string }) {
+  const t = useTranslations();
+  const [state, action, pending] = useActionState(userRowAction, initialFormState);
+  const [filter, setFilter] = useState("");
+
+  const columns = useMemo(
+    () =>
+      column.columns([
+        column.accessor("name", {
+          header: () => t("admin.columns.name"),
+          cell: (info) => (
+            <span className="font-medium text-stone-900">
+              {info.getValue()}
+              {info.row.original.id === selfId ? <span className="ml-1 text-xs text-stone-500">({t("admin.you")})</span> : null}
+            </span>
+          ),
+        }),
+        column.accessor("email", { header: () => t("admin.columns.email") }),
+        column.accessor("role", {
+          header: () => t("admin.columns.role"),
+          cell: (info) => {
+            const user = info.row.original;
+            return (
+              <form action={action} className="flex items-center gap-2">
+                <input type="hidden" name="id" value={user.id} />
+                <input type="hidden" name="intent" value="role" />
+                <select
+                  name="role"
+                  aria-label={t("admin.changeRole", { name: user.name })}
+                  defaultValue={user.role}
+                  disabled={pending || user.id === selfId}
+                  onChange={(e) => e.currentTarget.form?.requestSubmit()}
+                  className="rounded-md border border-stone-300 bg-white px-2 py-1 text-sm"
+                >
+                  {roles.map((role) => (
+                    <option key={role} value={role}>
+                      {t(`roles.${role}.name`)}
+                    </option>
+                  ))}
+                </select>
+              </form>
+            );
+          },
+        }),
+        column.display({
+          id: "status",
+          header: () => t("admin.columns.status"),
+          cell: ({ row }) => {
+            const u = row.original;
+            const status = u.disabled ? "disabled" : u.invited ? "invited" : "active";
+            const tone = { active: "bg-emerald-100 text-emerald-900", disabled: "bg-stone-200 text-stone-700", invited: "bg-amber-100 text-amber-900" }[status];
+            return <span className={cn("rounded-full px-2 py-0.5 text-xs font-medium", tone)}>{t(`admin.status.${status}`)}</span>;
+          },
+        }),
+        column.display({
+          id: "actions",
+          header: () => <span className="sr-only">{t("admin.columns.actions")}</span>,
+          cell: ({ row }) => {
+            const u = row.original;
+            const button = (intent: string, label: string, variant: "secondary" | "danger" = "secondary") => (
+              <form action={action}>
+                <input type="hidden" name="id" value={u.id} />
+                <input type="hidden" name="email" value={u.email} />
+                <input type="hidden" name="intent" value={intent} />
+                <Button type="submit" variant={variant} className="px-2.5 py-1 text-xs" disabled={pending}>
+                  {label}
+                </Button>
+              </form>
+            );
+            return (
+              <div className="flex flex-wrap justify-end gap-2">
+                {u.invited ? button("invite", t("admin.resendInvite")) : button("reset", t("admin.sendReset"))}
+                {u.id === selfId ? null : u.disabled ? button("enable", t("admin.enable")) : button("disable", t("admin.disable"), "danger")}
+              </div>
+            );
+          },
+        }),
+      ]),
+    [t, action, pending, selfId],
+  );
+
+  const table = useTable({
+    features,
+    columns,
+    data: users,
+    state: { globalFilter: filter },
+    onGlobalFilterChange: setFilter,
+    globalFilterFn: "includesString",
+    initialState: { sorting: [{ id: "name", desc: false }] },
+  });
+  const rows = table.getRowModel().rows;
+
+  return (
+    <div className="space-y-3">
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <input
+          type="search"
+          value={filter}
+          onChange={(e) => setFilter(e.target.value)}
+          placeholder={t("admin.search")}
+          aria-label={t("admin.search")}
+          className="w-72 rounded-md border border-stone-300 bg-white px-3 py-1.5 text-sm"
+        />
+        <p className="text-sm text-stone-600">{t("admin.count", { count: rows.length })}</p>
+      </div>
+      {state.message ? <Notice tone={state.status === "success" ? "success" : "error"}>{state.message}</Notice> : null}
+      <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
+        <table className="min-w-full divide-y divide-stone-200 text-sm">
+          <thead className="bg-stone-50">
+            {table.getHeaderGroups().map((group) => (
+              <tr key={group.id}>
+                {group.headers.map((header) => (
+                  <th key={header.id} scope="col" className="px-4 py-2.5 text-left font-semibold text-stone-700">
+                    {header.column.getCanSort() ? (
+                      <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1">
+                        {flexRender(header.column.columnDef.header, header.getContext())}
+                        <span aria-hidden="true">{{ asc: "▲", desc: "▼" }[header.column.getIsSorted() as string] ?? ""}</span>
+                      </button>
+                    ) : (
+                      flexRender(header.column.columnDef.header, header.getContext())
+                    )}
+                  </th>
+                ))}
+              </tr>
+            ))}
+          </thead>
+          <tbody className="divide-y divide-stone-100">
+            {rows.length === 0 ? (
+              <tr>
+                <td colSpan={columns.length} className="px-4 py-8 text-center text-stone-500">
+                  {t("admin.empty")}
+                </td>
+              </tr>
+            ) : (
+              rows.map((row) => (
+                <tr key={row.id} data-testid={`user-row-${row.original.email}`} className="hover:bg-stone-50">
+                  {row.getAllCells().map((cell) => (
+                    <td key={cell.id} className="px-4 py-2.5 align-middle text-stone-700">
+                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                    </td>
+                  ))}
+                </tr>
+              ))
+            )}
+          </tbody>
+        </table>
+      </div>
+    </div>
+  );
+}

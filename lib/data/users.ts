@@ -1,0 +1,137 @@
+import "server-only";
+import { and, asc, eq, gt, isNull, sql } from "drizzle-orm";
+import { db } from "@/db";
+import { users, userTokens, type User } from "@/db/schema";
+import { invitationMail, passwordResetMail } from "@/lib/emails/templates";
+import { hashPassword } from "@/lib/auth/passwords";
+import { hashSecret, newSecret } from "@/lib/auth/secrets";
+import { env } from "@/lib/env";
+import { AppError } from "@/lib/errors";
+import { pickLocale } from "@/lib/i18n/config";
+import { translator } from "@/lib/i18n/translator";
+import { sendMail } from "@/lib/mail";
+import { assertCan, type Actor } from "@/lib/session";
+import type { InviteUserInput, UpdateUserInput } from "@/lib/validation/users";
+
+export const linkLifetime = { inviteHours: 72, resetMinutes: 60 } as const;
+
+export interface UserDto {
+  id: string;
+  email: string;
+  name: string;
+  role: User["role"];
+  disabled: boolean;
+  invited: boolean;
+  unitSystem: User["unitSystem"];
+  createdAt: string;
+}
+
+export const toUserDto = (u: User): UserDto => ({
+  id: u.id,
+  email: u.email,
+  name: u.name,
+  role: u.role,
+  disabled: u.disabled,
+  invited: u.passwordHash === null,
+  unitSystem: u.unitSystem,
+  createdAt: u.createdAt.toISOString(),
+});
+
+export async function listUsers(actor: Actor): Promise<UserDto[]> {
+  assertCan(actor, "users:manage");
+  const rows = await db.select().from(users).orderBy(asc(users.name));
+  return rows.map(toUserDto);
+}
+
+async function findUser(id: string): Promise<User> {
+  const [user] = await db.select().from(users).where(eq(users.id, id)).limit(1);
+  if (!user) throw new AppError("notFound");
+  return user;
+}
+
+async function issueLink(userId: string, kind: "invite" | "reset") {
+  const secret = newSecret();
+  const lifetimeMs = kind === "invite" ? linkLifetime.inviteHours * 3_600_000 : linkLifetime.resetMinutes * 60_000;
+  // A new link replaces any older unused one of the same kind.
+  await db.delete(userTokens).where(and(eq(userTokens.userId, userId), eq(userTokens.kind, kind), isNull(userTokens.usedAt)));
+  await db.insert(userTokens).values({ userId, kind, tokenHash: hashSecret(secret), expiresAt: new Date(Date.now() + lifetimeMs) });
+  return `${env().APP_URL.replace(/\/$/, "")}/set-password?token=${encodeURIComponent(secret)}`;
+}
+
+export async function inviteUser(actor: Actor, input: InviteUserInput): Promise<UserDto> {
+  assertCan(actor, "users:manage");
+  const [existing] = await db.select({ id: users.id }).from(users).where(eq(sql`lower(${users.email})`, input.email)).limit(1);
+  if (existing) throw new AppError("emailTaken", {}, { email: ["validation.emailTaken"] });
+  const [user] = await db.insert(users).values({ email: input.email, name: input.name, role: input.role }).returning();
+  const t = translator(pickLocale(user.locale));
+  const link = await issueLink(user.id, "invite");
+  const mail = invitationMail(t, { name: user.name, inviter: actor.name, role: t(`roles.${user.role}.name`), link, hours: linkLifetime.inviteHours });
+  await sendMail({ to: user.email, ...mail });
+  return toUserDto(user);
+}
+
+export async function resendInvitation(actor: Actor, id: string) {
+  assertCan(actor, "users:manage");
+  const user = await findUser(id);
+  if (user.passwordHash) throw new AppError("conflict");
+  const t = translator(pickLocale(user.locale));
+  const link = await issueLink(user.id, "invite");
+  await sendMail({ to: user.email, ...invitationMail(t, { name: user.name, inviter: actor.name, role: t(`roles.${user.role}.name`), link, hours: linkLifetime.inviteHours }) });
+}
+
+export async function updateUser(actor: Actor, id: string, patch: UpdateUserInput): Promise<UserDto> {
+  assertCan(actor, "users:manage");
+  const user = await findUser(id);
+  if (user.id === actor.id && (patch.disabled === true || (patch.role && patch.role !== "admin"))) {
+    // Keeps at least the acting admin able to undo mistakes.
+    throw new AppError("conflict", {}, { role: ["validation.cannotDemoteSelf"] });
+  }
+  const endsSessions = (patch.role !== undefined && patch.role !== user.role) || (patch.disabled !== undefined && patch.disabled !== user.disabled);
+  const [updated] = await db
+    .update(users)
+    .set({ ...patch, updatedAt: new Date(), ...(endsSessions ? { sessionVersion: sql`${users.sessionVersion} + 1` } : {}) })
+    .where(eq(users.id, id))
+    .returning();
+  return toUserDto(updated);
+}
+
+/** Sends a reset link if the address belongs to an active user; answers the same either way. */
+export async function requestPasswordReset(email: string) {
+  const [user] = await db.select().from(users).where(eq(sql`lower(${users.email})`, email.toLowerCase())).limit(1);
+  if (!user || user.disabled) return;
+  const t = translator(pickLocale(user.locale));
+  const link = await issueLink(user.id, "reset");
+  await sendMail({ to: user.email, ...passwordResetMail(t, { name: user.name, link, minutes: linkLifetime.resetMinutes }) });
+}
+
+export async function sendPasswordResetFor(actor: Actor, id: string) {
+  assertCan(actor, "users:manage");
+  const user = await findUser(id);
+  await requestPasswordReset(user.email);
+}
+
+/** Uses an invitation or reset link once: sets the password and ends every older session. */
+export async function setPasswordWithToken(secret: string, password: string): Promise<{ email: string }> {
+  const passwordHash = await hashPassword(password);
+  return db.transaction(async (tx) => {
+    const [token] = await tx
+      .update(userTokens)
+      .set({ usedAt: new Date() })
+      .where(and(eq(userTokens.tokenHash, hashSecret(secret)), isNull(userTokens.usedAt), gt(userTokens.expiresAt, new Date())))
+      .returning();
+    if (!token) throw new AppError("tokenInvalid");
+    const [user] = await tx
+      .update(users)
+      .set({ passwordHash, sessionVersion: sql`${users.sessionVersion} + 1`, updatedAt: new Date() })
+      .where(and(eq(users.id, token.userId), eq(users.disabled, false)))
+      .returning();
+    if (!user) throw new AppError("tokenInvalid");
+    return { email: user.email };
+  });
+}
+
+export async function updateProfile(actor: Actor, patch: { name: string; unitSystem: User["unitSystem"] }) {
+  assertCan(actor, "account:self");
+  const [user] = await db.update(users).set({ ...patch, updatedAt: new Date() }).where(eq(users.id, actor.id)).returning();
+  return toUserDto(user);
+}

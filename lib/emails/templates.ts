@@ -1,0 +1,38 @@
+import type { Translator } from "@/lib/i18n/translator";
+
+const escapeHtml = (s: string) =>
+  s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
+
+function layout(paragraphs: string[], link: { href: string; label: string }, footer: string) {
+  const body = paragraphs.map((p) => `<p>${escapeHtml(p)}</p>`).join("");
+  const html =
+    `<div style="font-family:system-ui,sans-serif;max-width:560px;color:#1c1917">${body}` +
+    `<p><a href="${escapeHtml(link.href)}" style="display:inline-block;background:#7c2d12;color:#fff;padding:10px 16px;border-radius:6px;text-decoration:none">${escapeHtml(link.label)}</a></p>` +
+    `<p style="font-size:13px;color:#57534e">${escapeHtml(link.href)}</p>` +
+    `<p style="font-size:13px;color:#57534e">${escapeHtml(footer)}</p></div>`;
+  const text = [...paragraphs, "", `${link.label}: ${link.href}`, "", footer].join("\n");
+  return { html, text };
+}
+
+/** Invitation with a set-password link (subject, text and HTML from the catalogue). */
+export function invitationMail(t: Translator, p: { name: string; inviter: string; role: string; link: string; hours: number }) {
+  return {
+    subject: t("emails.invite.subject"),
+    ...layout(
+      [t("emails.invite.greeting", { name: p.name }), t("emails.invite.body", { inviter: p.inviter, role: p.role })],
+      { href: p.link, label: t("emails.invite.action") },
+      t("emails.invite.expiry", { hours: p.hours }),
+    ),
+  };
+}
+
+export function passwordResetMail(t: Translator, p: { name: string; link: string; minutes: number }) {
+  return {
+    subject: t("emails.reset.subject"),
+    ...layout(
+      [t("emails.reset.greeting", { name: p.name }), t("emails.reset.body")],
+      { href: p.link, label: t("emails.reset.action") },
+      t("emails.reset.expiry", { minutes: p.minutes }),
+    ),
+  };
+}

@@ -1,0 +1,41 @@
+import "server-only";
+import { z } from "zod";
+
+// Parsed once at start-up; a missing or malformed variable stops the app with a clear message.
+const schema = z.object({
+  DATABASE_URL: z.url(),
+  APP_URL: z.url().default("http://localhost:3000"),
+  AUTH_SECRET: z.string().min(16, "AUTH_SECRET must be at least 16 characters (openssl rand -base64 33)"),
+  SMTP_HOST: z.string().min(1),
+  SMTP_PORT: z.coerce.number().int().positive(),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASSWORD: z.string().optional(),
+  SMTP_SECURE: z.stringbool().default(false),
+  MAIL_FROM: z.string().min(3).default("Capgrid <no-reply@capgrid.test>"),
+  MAIL_VIEWER_URL: z.union([z.url(), z.literal("")]).optional(),
+  S3_ENDPOINT: z.union([z.url(), z.literal("")]).optional(),
+  S3_REGION: z.string().default("us-east-1"),
+  S3_BUCKET: z.string().min(3),
+  S3_ACCESS_KEY_ID: z.string().min(1),
+  S3_SECRET_ACCESS_KEY: z.string().min(1),
+  S3_FORCE_PATH_STYLE: z.stringbool().default(true),
+});
+
+export type Env = z.infer<typeof schema>;
+
+function parseEnv(): Env {
+  const parsed = schema.safeParse(process.env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((issue) => `  ${issue.path.join(".")}: ${issue.message}`);
+    throw new Error(`Invalid environment (see .env.example):\n${lines.join("\n")}`);
+  }
+  return parsed.data;
+}
+
+let cached: Env | undefined;
+
+/** The validated environment; read lazily so `next build` does not need every variable. */
+export function env(): Env {
+  cached ??= parseEnv();
+  return cached;
+}

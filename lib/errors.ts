@@ -1,0 +1,37 @@
+/**
+ * One error type for the app. `code` names a message in the catalogue (`errors.<code>`) and
+ * decides the HTTP status; `fields` carries per-field message keys for forms and the API.
+ */
+export const errorStatus = {
+  badRequest: 400,
+  validation: 400,
+  unauthenticated: 401,
+  forbidden: 403,
+  crossSite: 403,
+  notFound: 404,
+  conflict: 409,
+  emailTaken: 409,
+  payloadTooLarge: 413,
+  unsupportedMediaType: 415,
+  unprocessable: 422,
+  rateLimited: 429,
+  tokenInvalid: 400,
+  internal: 500,
+} as const;
+
+export type ErrorCode = keyof typeof errorStatus;
+
+export type FieldErrors = Record<string, string[]>;
+
+export class AppError extends Error {
+  readonly status: number;
+  constructor(
+    readonly code: ErrorCode,
+    readonly params: Record<string, string | number> = {},
+    readonly fields?: FieldErrors,
+  ) {
+    super(code);
+    this.name = "AppError";
+    this.status = errorStatus[code];
+  }
+}

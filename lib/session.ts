@@ -1,0 +1,89 @@
+import "server-only";
+import { and, eq, isNull } from "drizzle-orm";
+import { headers } from "next/headers";
+import { redirect } from "next/navigation";
+import { cache } from "react";
+import { db } from "@/db";
+import { apiTokens, users, type Role, type User } from "@/db/schema";
+import { auth } from "@/lib/auth/config";
+import { hashSecret } from "@/lib/auth/secrets";
+import { AppError } from "@/lib/errors";
+import { can, type Permission } from "@/lib/permissions";
+
+/** The person acting, as the data-access layer sees them: always re-read from the database. */
+export interface Actor {
+  id: string;
+  email: string;
+  name: string;
+  role: Role;
+  unitSystem: User["unitSystem"];
+  locale: User["locale"];
+  via: "session" | "token";
+}
+
+const toActor = (user: User, via: Actor["via"]): Actor => ({
+  id: user.id,
+  email: user.email,
+  name: user.name,
+  role: user.role,
+  unitSystem: user.unitSystem,
+  locale: user.locale,
+  via,
+});
+
+async function actorFromToken(secret: string): Promise<Actor | null> {
+  const [row] = await db
+    .select({ user: users, tokenId: apiTokens.id, lastUsedAt: apiTokens.lastUsedAt })
+    .from(apiTokens)
+    .innerJoin(users, eq(users.id, apiTokens.userId))
+    .where(and(eq(apiTokens.tokenHash, hashSecret(secret)), isNull(apiTokens.revokedAt)))
+    .limit(1);
+  if (!row || row.user.disabled) return null;
+  if (!row.lastUsedAt || Date.now() - row.lastUsedAt.getTime() > 60_000) {
+    await db.update(apiTokens).set({ lastUsedAt: new Date() }).where(eq(apiTokens.id, row.tokenId));
+  }
+  return toActor(row.user, "token");
+}
+
+async function actorFromSession(): Promise<Actor | null> {
+  const session = await auth();
+  const claimed = session?.user;
+  if (!claimed?.id) return null;
+  const [user] = await db.select().from(users).where(eq(users.id, claimed.id)).limit(1);
+  // A role change, new password or disabling bumps sessionVersion: older sessions end here.
+  if (!user || user.disabled || user.sessionVersion !== claimed.sessionVersion) return null;
+  return toActor(user, "session");
+}
+
+/** Who is asking: a Bearer API token wins over the session cookie. Cached per request. */
+export const currentActor = cache(async (): Promise<Actor | null> => {
+  const authorization = (await headers()).get("authorization");
+  if (authorization) {
+    const match = /^Bearer\s+(\S+)$/i.exec(authorization);
+    return match ? actorFromToken(match[1]) : null;
+  }
+  return actorFromSession();
+});
+
+export async function requireActor(): Promise<Actor> {
+  const actor = await currentActor();
+  if (!actor) throw new AppError("unauthenticated");
+  return actor;
+}
+
+export function assertCan(actor: Actor, permission: Permission) {
+  if (!can(actor.role, permission)) throw new AppError("forbidden");
+}
+
+export async function requirePermission(permission: Permission): Promise<Actor> {
+  const actor = await requireActor();
+  assertCan(actor, permission);
+  return actor;
+}
+
+/** For pages: send people without a valid session to the sign-in page. */
+export async function requirePageActor(): Promise<Actor> {
+  const actor = await currentActor();
+  if (!actor) redirect("/signin");
+  return actor;
+}

@@ -1,0 +1,53 @@
+import type { z } from "zod";
+import type { FieldErrors } from "@/lib/errors";
+
+type Translate = (key: string, values?: Record<string, string | number>) => string;
+type HasKey = (key: string) => boolean;
+
+/** The catalogue key and values for one zod issue; schemas may name a key as their message. */
+export function issueMessage(issue: z.core.$ZodIssue): { key: string; values: Record<string, string | number> } {
+  if (issue.message.startsWith("validation.")) {
+    const values: Record<string, string | number> = {};
+    if ("minimum" in issue) values.min = Number(issue.minimum);
+    if ("maximum" in issue) values.max = Number(issue.maximum);
+    return { key: issue.message, values };
+  }
+  switch (issue.code) {
+    case "invalid_type":
+      return issue.input === undefined || /received undefined/.test(issue.message)
+        ? { key: "validation.required", values: {} }
+        : { key: "validation.invalidType", values: { expected: String(issue.expected) } };
+    case "too_small":
+      return {
+        key: issue.origin === "string" ? "validation.tooShort" : issue.origin === "array" ? "validation.tooFew" : "validation.tooSmall",
+        values: { min: Number(issue.minimum) },
+      };
+    case "too_big":
+      return {
+        key: issue.origin === "string" ? "validation.tooLong" : issue.origin === "array" ? "validation.tooMany" : "validation.tooBig",
+        values: { max: Number(issue.maximum) },
+      };
+    case "invalid_format":
+      return { key: issue.format === "email" ? "validation.email" : "validation.invalidFormat", values: {} };
+    case "invalid_value":
+      return { key: "validation.invalidOption", values: { options: issue.values.map(String).join(", ") } };
+    case "unrecognized_keys":
+      return { key: "validation.unknownFields", values: { keys: issue.keys.join(", ") } };
+    case "not_multiple_of":
+      return { key: "validation.notMultipleOf", values: { step: Number(issue.divisor) } };
+    default:
+      return { key: "validation.invalid", values: {} };
+  }
+}
+
+/** Translated messages keyed by the field's dotted path ("cloth.widthMm"); "_form" for the whole input. */
+export function translateIssues(issues: readonly z.core.$ZodIssue[], t: Translate, has?: HasKey): FieldErrors {
+  const fields: FieldErrors = {};
+  for (const issue of issues) {
+    const path = issue.path.length ? issue.path.map(String).join(".") : "_form";
+    let { key, values } = issueMessage(issue);
+    if (has && !has(key)) ({ key, values } = { key: "validation.invalid", values: {} });
+    (fields[path] ??= []).push(t(key, values));
+  }
+  return fields;
+}

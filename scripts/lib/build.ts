@@ -1,0 +1,29 @@
+import { spawnSync } from "node:child_process";
+import { existsSync, readdirSync, statSync } from "node:fs";
+import { join } from "node:path";
+import { projectRoot } from "./config";
+
+const sourceEntries = ["app", "components", "lib", "db", "public", "proxy.ts", "next.config.ts", "package-lock.json", "postcss.config.mjs", "tsconfig.json"];
+
+function newestMtime(path: string): number {
+  if (!existsSync(path)) return 0;
+  const stat = statSync(path);
+  if (!stat.isDirectory()) return stat.mtimeMs;
+  let newest = stat.mtimeMs;
+  for (const entry of readdirSync(path)) newest = Math.max(newest, newestMtime(join(path, entry)));
+  return newest;
+}
+
+/** Builds the app with `next build` unless the last build is newer than every source file. */
+export function buildIfStale(force = false) {
+  const buildId = join(projectRoot, ".next", "BUILD_ID");
+  const builtAt = existsSync(buildId) ? statSync(buildId).mtimeMs : 0;
+  const sourcesAt = Math.max(...sourceEntries.map((e) => newestMtime(join(projectRoot, e))));
+  if (!force && builtAt > sourcesAt) {
+    console.log("[build] the last build is up to date");
+    return;
+  }
+  console.log("[build] next build (a minute or two the first time)…");
+  const result = spawnSync(join(projectRoot, "node_modules", ".bin", "next"), ["build"], { stdio: "inherit", cwd: projectRoot, env: process.env });
+  if (result.status !== 0) throw new Error("next build failed; see the messages above");
+}

@@ -1,0 +1,13 @@
+import type { Database } from "@/db";
+import { demoUsers, seedUsers } from "@/db/seed/users";
+
+export async function seedDemo(db: Database) {
+  await seedUsers(db);
+}
+
+export function printSignIns(appUrl = process.env.APP_URL ?? "http://localhost:3000") {
+  const width = Math.max(...demoUsers.map((u) => u.email.length));
+  console.log(`\nDemo sign-ins at ${appUrl}/signin (development only):`);
+  for (const u of demoUsers) console.log(`  ${u.role.padEnd(10)} ${u.email.padEnd(width)}  ${u.password}`);
+  console.log("");
+}

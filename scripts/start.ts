@@ -1,0 +1,61 @@
+// npm start — runs Capgrid on this machine: PostgreSQL, mail catcher and object store on loopback,
+// migrations, demo data on first run, a production build, and the app at http://localhost:3000.
+// `npm run dev` does the same with the Next.js dev server. Ctrl-C stops everything it started.
+import { spawn } from "node:child_process";
+import { join } from "node:path";
+import { ensureAuthSecret, loadConfig, projectRoot } from "./lib/config";
+import { runMigrations } from "./lib/migrate";
+import { buildIfStale } from "./lib/build";
+import { startStack } from "./lib/stack";
+import { printSignIns, seedDemo } from "./lib/seed";
+
+const dev = process.argv.includes("--dev");
+const env = loadConfig();
+const dataDir = join(projectRoot, ".data");
+ensureAuthSecret(dataDir);
+
+let stack: Awaited<ReturnType<typeof startStack>> | undefined;
+try {
+  stack = await startStack(dataDir);
+  await runMigrations(env.DATABASE_URL!);
+
+  const { database } = await import("@/db");
+  const { users } = await import("@/db/schema");
+  const { client, db } = database();
+  const firstRun = (await db.select({ id: users.id }).from(users).limit(1)).length === 0;
+  if (firstRun) {
+    console.log("[seed] empty database: adding the demo workshop");
+    await seedDemo(db);
+  }
+  await client.end();
+
+  if (!dev) buildIfStale();
+} catch (error) {
+  console.error(`\n${(error as Error).message}\n`);
+  stack?.stop();
+  process.exit(1);
+}
+
+const port = env.PORT ?? "3000";
+const app = spawn(join(projectRoot, "node_modules", ".bin", "next"), [dev ? "dev" : "start", "-p", port, "-H", "127.0.0.1"], {
+  stdio: "inherit",
+  env: process.env,
+  cwd: projectRoot,
+});
+
+printSignIns(env.APP_URL);
+console.log(`Capgrid: ${env.APP_URL}`);
+if (env.MAIL_VIEWER_URL) console.log(`Captured mail: ${env.MAIL_VIEWER_URL}`);
+console.log("Press Ctrl-C to stop.\n");
+
+let stopping = false;
+const shutdown = (code: number) => {
+  if (stopping) return;
+  stopping = true;
+  if (app.exitCode === null) app.kill("SIGTERM");
+  stack?.stop();
+  process.exit(code);
+};
+process.on("SIGINT", () => shutdown(0));
+process.on("SIGTERM", () => shutdown(0));
+app.on("exit", (code) => shutdown(code ?? 0));
