@@ -8,6 +8,8 @@ const nextConfig: NextConfig = {
   serverExternalPackages: ["paper", "@node-rs/argon2", "sharp"],
   poweredByHeader: false,
   typedRoutes: false,
+  // The test run builds into its own folder so it never disturbs a running `npm start`.
+  distDir: process.env.NEXT_DIST_DIR || ".next",
 };
 
 export default withNextIntl(nextConfig);

@@ -4,7 +4,8 @@ import { defineConfig } from "vitest/config";
 const root = fileURLToPath(new URL(".", import.meta.url));
 
 export default defineConfig({
-  resolve: { alias: { "@": root } },
+  // server-only guards Next bundles; the tests call the data layer directly.
+  resolve: { alias: { "@": root, "server-only": `${root}tests/helpers/empty-module.ts` } },
   test: {
     projects: [
       {

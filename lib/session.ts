@@ -4,22 +4,12 @@ import { headers } from "next/headers";
 import { redirect } from "next/navigation";
 import { cache } from "react";
 import { db } from "@/db";
-import { apiTokens, users, type Role, type User } from "@/db/schema";
+import { apiTokens, users, type User } from "@/db/schema";
 import { auth } from "@/lib/auth/config";
 import { hashSecret } from "@/lib/auth/secrets";
 import { AppError } from "@/lib/errors";
-import { can, type Permission } from "@/lib/permissions";
-
-/** The person acting, as the data-access layer sees them: always re-read from the database. */
-export interface Actor {
-  id: string;
-  email: string;
-  name: string;
-  role: Role;
-  unitSystem: User["unitSystem"];
-  locale: User["locale"];
-  via: "session" | "token";
-}
+import { assertCan, type Actor } from "@/lib/authz";
+import type { Permission } from "@/lib/permissions";
 
 const toActor = (user: User, via: Actor["via"]): Actor => ({
   id: user.id,
@@ -71,10 +61,6 @@ export async function requireActor(): Promise<Actor> {
   return actor;
 }
 
-export function assertCan(actor: Actor, permission: Permission) {
-  if (!can(actor.role, permission)) throw new AppError("forbidden");
-}
-
 export async function requirePermission(permission: Permission): Promise<Actor> {
   const actor = await requireActor();
   assertCan(actor, permission);
@@ -87,3 +73,5 @@ export async function requirePageActor(): Promise<Actor> {
   if (!actor) redirect("/signin");
   return actor;
 }
+
+export { assertCan, type Actor };

@@ -4,7 +4,7 @@ import { db } from "@/db";
 import { apiTokens } from "@/db/schema";
 import { hashSecret, newSecret } from "@/lib/auth/secrets";
 import { AppError } from "@/lib/errors";
-import { assertCan, type Actor } from "@/lib/session";
+import { assertCan, type Actor } from "@/lib/authz";
 
 export interface ApiTokenDto {
   id: string;

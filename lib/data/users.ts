@@ -10,7 +10,7 @@ import { AppError } from "@/lib/errors";
 import { pickLocale } from "@/lib/i18n/config";
 import { translator } from "@/lib/i18n/translator";
 import { sendMail } from "@/lib/mail";
-import { assertCan, type Actor } from "@/lib/session";
+import { assertCan, type Actor } from "@/lib/authz";
 import type { InviteUserInput, UpdateUserInput } from "@/lib/validation/users";
 
 export const linkLifetime = { inviteHours: 72, resetMinutes: 60 } as const;

@@ -6,12 +6,11 @@ type HasKey = (key: string) => boolean;
 
 /** The catalogue key and values for one zod issue; schemas may name a key as their message. */
 export function issueMessage(issue: z.core.$ZodIssue): { key: string; values: Record<string, string | number> } {
-  if (issue.message.startsWith("validation.")) {
-    const values: Record<string, string | number> = {};
-    if ("minimum" in issue) values.min = Number(issue.minimum);
-    if ("maximum" in issue) values.max = Number(issue.maximum);
-    return { key: issue.message, values };
-  }
+  const byCode = messageForCode(issue);
+  return issue.message.startsWith("validation.") ? { key: issue.message, values: byCode.values } : byCode;
+}
+
+function messageForCode(issue: z.core.$ZodIssue): { key: string; values: Record<string, string | number> } {
   switch (issue.code) {
     case "invalid_type":
       return issue.input === undefined || /received undefined/.test(issue.message)

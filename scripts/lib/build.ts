@@ -16,7 +16,7 @@ function newestMtime(path: string): number {
 
 /** Builds the app with `next build` unless the last build is newer than every source file. */
 export function buildIfStale(force = false) {
-  const buildId = join(projectRoot, ".next", "BUILD_ID");
+  const buildId = join(projectRoot, process.env.NEXT_DIST_DIR || ".next", "BUILD_ID");
   const builtAt = existsSync(buildId) ? statSync(buildId).mtimeMs : 0;
   const sourcesAt = Math.max(...sourceEntries.map((e) => newestMtime(join(projectRoot, e))));
   if (!force && builtAt > sourcesAt) {

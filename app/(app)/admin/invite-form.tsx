@@ -15,7 +15,7 @@ export function InviteForm() {
   // A successful invitation clears the form (new key); a failed one keeps what was typed.
   const formKey = state.status === "success" ? state.message : "form";
   return (
-    <form key={formKey} action={action} className="grid gap-4 md:grid-cols-[1fr_1fr_12rem_auto] md:items-start" noValidate>
+    <form key={formKey} action={action} aria-label={t("admin.invite.title")} className="grid gap-4 md:grid-cols-[1fr_1fr_12rem_auto] md:items-start" noValidate>
       {state.message ? (
         <Notice tone={state.status === "success" ? "success" : "error"} className="md:col-span-4">
           {state.message}

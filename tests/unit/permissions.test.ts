@@ -1,0 +1,23 @@
+import { describe, expect, it } from "vitest";
+import { can, permissionTable, roles } from "@/lib/permissions";
+
+// The rows of SPEC section 2, written out again by hand so a slip in the table shows here.
+const spec: Record<string, string[]> = {
+  "users:manage": ["admin"],
+  "stamps:write": ["admin", "keeper"],
+  "stamps:request": ["admin", "keeper", "planner", "waxmaster", "designer"],
+  "plans:write": ["admin", "planner"],
+  "wax:write": ["admin", "waxmaster"],
+  "motifs:write": ["admin", "keeper", "designer"],
+  "data:read": ["admin", "keeper", "planner", "waxmaster", "designer"],
+};
+
+describe("permission table", () => {
+  it.each(Object.entries(spec))("%s follows SPEC section 2", (permission, allowed) => {
+    for (const role of roles) expect(can(role, permission as keyof typeof permissionTable), `${role} ${permission}`).toBe(allowed.includes(role));
+  });
+
+  it("has no permission that SPEC section 2 does not name, besides keeping one's own account", () => {
+    expect(Object.keys(permissionTable).sort()).toEqual([...Object.keys(spec), "account:self"].sort());
+  });
+});
