@@ -3,7 +3,8 @@
 // Everything it starts is stopped at the end, also when a test fails or on Ctrl-C.
 import { type ChildProcess, spawn, spawnSync } from "node:child_process";
 import { randomBytes } from "node:crypto";
-import { rmSync } from "node:fs";
+import { existsSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { loadConfig, projectRoot } from "./lib/config";
 import { buildIfStale } from "./lib/build";
@@ -32,8 +33,20 @@ const env = loadConfig();
 
 const only = process.argv.includes("--only") ? process.argv[process.argv.indexOf("--only") + 1] : undefined;
 const wants = (suite: string) => !only || only === suite;
-const vitest = (project: string) =>
-  spawnSync(join(projectRoot, "node_modules", ".bin", "vitest"), ["run", "--project", project], { stdio: "inherit", env: process.env, cwd: projectRoot }).status ?? 1;
+const totals = { passed: 0, failed: 0, skipped: 0 };
+const reportDir = mkdtempSync(join(tmpdir(), "capgrid-test-"));
+function vitest(project: string): number {
+  const report = join(reportDir, `${project}.json`);
+  const args = ["run", "--project", project, "--reporter=default", "--reporter=json", `--outputFile.json=${report}`];
+  const status = spawnSync(join(projectRoot, "node_modules", ".bin", "vitest"), args, { stdio: "inherit", env: process.env, cwd: projectRoot }).status ?? 1;
+  if (existsSync(report)) {
+    const r = JSON.parse(readFileSync(report, "utf8"));
+    totals.passed += r.numPassedTests;
+    totals.failed += r.numFailedTests;
+    totals.skipped += r.numPendingTests + r.numTodoTests;
+  } else if (status !== 0) totals.failed += 1;
+  return status;
+}
 
 const dataDir = join(projectRoot, ".test-data");
 let stack: Stack | undefined;
@@ -75,5 +88,7 @@ try {
 } finally {
   cleanUp();
   rmSync(dataDir, { recursive: true, force: true });
+  rmSync(reportDir, { recursive: true, force: true });
 }
-process.exit(failed ? 1 : 0);
+console.log(`\nTests: ${totals.passed} passed, ${totals.failed} failed, ${totals.skipped} skipped`);
+process.exit(failed || totals.failed ? 1 : 0);

@@ -29,6 +29,13 @@ class RateLimited extends CredentialsSignin {
 
 export const { handlers, auth, signIn, signOut } = NextAuth({
   trustHost: true,
+  logger: {
+    // A wrong password is an everyday event, not a server error worth a stack trace.
+    error(error) {
+      if (error.name === "CredentialsSignin" || (error as { type?: string }).type === "CredentialsSignin") return;
+      console.error(error);
+    },
+  },
   session: { strategy: "jwt", maxAge: 12 * 60 * 60 },
   pages: { signIn: "/signin" },
   providers: [

@@ -1,10 +1,19 @@
-import en from "./messages/en.json";
 import type { Locale } from "./config";
+import enAuth from "./messages/en/auth.json";
+import enEmails from "./messages/en/emails.json";
+import enErrors from "./messages/en/errors.json";
+import enPeople from "./messages/en/people.json";
+import enShell from "./messages/en/shell.json";
 
-export type Messages = typeof en;
+// One file per area, each holding whole top-level namespaces, so areas can grow without
+// touching each other's files. tests/unit/catalogue.test.ts checks no namespace is defined twice.
+export const catalogueFiles = {
+  en: [enShell, enAuth, enPeople, enErrors, enEmails],
+} satisfies Record<Locale, object[]>;
 
-const catalogues: Record<Locale, Messages> = { en };
+const merge = (files: object[]) => Object.assign({}, ...files) as Record<string, unknown>;
+const catalogues: Record<Locale, Record<string, unknown>> = { en: merge(catalogueFiles.en) };
 
-export function messagesFor(locale: Locale): Messages {
+export function messagesFor(locale: Locale): Record<string, unknown> {
   return catalogues[locale];
 }

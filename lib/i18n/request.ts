@@ -1,4 +1,5 @@
 import { cookies, headers } from "next/headers";
+import type { AbstractIntlMessages } from "next-intl";
 import { getRequestConfig } from "next-intl/server";
 import { localeCookie, pickLocale } from "./config";
 import { messagesFor } from "./messages";
@@ -9,5 +10,5 @@ export default getRequestConfig(async () => {
   const fromCookie = (await cookies()).get(localeCookie)?.value;
   const fromBrowser = (await headers()).get("accept-language")?.split(",")[0]?.split("-")[0];
   const locale = pickLocale(fromCookie ?? fromBrowser);
-  return { locale, messages: messagesFor(locale), timeZone: "Asia/Jakarta" };
+  return { locale, messages: messagesFor(locale) as AbstractIntlMessages, timeZone: "Asia/Jakarta" };
 });

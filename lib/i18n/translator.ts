@@ -11,7 +11,7 @@ export interface Translator {
 }
 
 export function translator(locale: Locale = defaultLocale): Translator {
-  const t = createTranslator({ locale, messages: messagesFor(locale) as unknown as AbstractIntlMessages });
+  const t = createTranslator({ locale, messages: messagesFor(locale) as AbstractIntlMessages });
   const translate = ((key: string, values?: Values) => t(key as never, values as never)) as Translator;
   translate.has = (key: string) => t.has(key as never);
   return translate;

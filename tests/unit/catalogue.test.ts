@@ -2,6 +2,7 @@ import { readFileSync, readdirSync, statSync } from "node:fs";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { errorStatus } from "@/lib/errors";
+import { catalogueFiles } from "@/lib/i18n/messages";
 import { translator } from "@/lib/i18n/translator";
 import { permissionTable, roles } from "@/lib/permissions";
 
@@ -15,6 +16,16 @@ function sourceFiles(dir: string): string[] {
 }
 
 describe("English catalogue", () => {
+  it("defines each namespace in one file only", () => {
+    const seen = new Map<string, number>();
+    catalogueFiles.en.forEach((file, index) => {
+      for (const key of Object.keys(file)) {
+        expect(seen.has(key), `namespace "${key}" in files ${seen.get(key)} and ${index}`).toBe(false);
+        seen.set(key, index);
+      }
+    });
+  });
+
   it("has a message for every error code, role and permission", () => {
     for (const code of Object.keys(errorStatus)) expect(t.has(`errors.${code}`), code).toBe(true);
     for (const role of roles) expect(t.has(`roles.${role}.name`) && t.has(`roles.${role}.summary`), role).toBe(true);
