@@ -5,5 +5,5 @@ import { defineConfig, globalIgnores } from "eslint/config";
 export default defineConfig([
   ...nextVitals,
   ...nextTs,
-  globalIgnores([".next/**", ".next-test/**", ".data/**", ".test-data/**", "node_modules/**", "next-env.d.ts", "db/migrations/**"]),
+  globalIgnores([".next/**", ".next-test*/**", ".data/**", ".test-data*/**", "node_modules/**", "next-env.d.ts", "db/migrations/**"]),
 ]);

@@ -2,7 +2,7 @@
 export function testEnv() {
   const appUrl = process.env.APP_URL;
   const mailUrl = process.env.MAIL_VIEWER_URL;
-  if (!appUrl || !mailUrl || process.env.PORT !== "3100") {
+  if (!appUrl || !mailUrl || !process.env.NEXT_DIST_DIR?.startsWith(".next-test")) {
     throw new Error("Run the integration and browser tests through `npm test` (it starts the database, the fakes and the app).");
   }
   return { appUrl, mailUrl };
