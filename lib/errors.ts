@@ -23,12 +23,15 @@ export type ErrorCode = keyof typeof errorStatus;
 
 export type FieldErrors = Record<string, string[]>;
 
+/** A field message before translation: a catalogue key, with values for its placeholders. */
+export type FieldMessage = string | { key: string; values: Record<string, string | number> };
+
 export class AppError extends Error {
   readonly status: number;
   constructor(
     readonly code: ErrorCode,
     readonly params: Record<string, string | number> = {},
-    readonly fields?: FieldErrors,
+    readonly fields?: Record<string, FieldMessage[]>,
   ) {
     super(code);
     this.name = "AppError";

@@ -2,6 +2,7 @@ import "server-only";
 import { getLocale } from "next-intl/server";
 import { unstable_rethrow } from "next/navigation";
 import type { z } from "zod";
+import { translateFields } from "@/lib/api/route";
 import { AppError } from "@/lib/errors";
 import { pickLocale } from "@/lib/i18n/config";
 import { translator } from "@/lib/i18n/translator";
@@ -45,9 +46,7 @@ export async function runForm<S extends z.ZodType>(
   } catch (error) {
     unstable_rethrow(error);
     if (error instanceof AppError) {
-      const fieldErrors = error.fields
-        ? Object.fromEntries(Object.entries(error.fields).map(([f, keys]) => [f, keys.map((k) => t(k))]))
-        : undefined;
+      const fieldErrors = error.fields ? translateFields(error.fields, error.params, t) : undefined;
       return { status: "error", message: t(`errors.${error.code}`, error.params), fieldErrors, values };
     }
     console.error(error);

@@ -1,7 +1,7 @@
 import "server-only";
 import { NextResponse } from "next/server";
 import { ZodError, type z } from "zod";
-import { AppError, type FieldErrors } from "@/lib/errors";
+import { AppError, type FieldErrors, type FieldMessage } from "@/lib/errors";
 import { pickLocale } from "@/lib/i18n/config";
 import { translator, type Translator } from "@/lib/i18n/translator";
 import { type Permission } from "@/lib/permissions";
@@ -31,9 +31,7 @@ export function errorResponse(error: unknown, t: Translator): Response {
     return NextResponse.json({ error: { code: "validation", message: t("errors.validation"), fields } }, { status: error.status });
   }
   if (error instanceof AppError) {
-    const fields: FieldErrors | undefined = error.fields
-      ? Object.fromEntries(Object.entries(error.fields).map(([field, keys]) => [field, keys.map((key) => t(key, error.params))]))
-      : undefined;
+    const fields: FieldErrors | undefined = error.fields ? translateFields(error.fields, error.params, t) : undefined;
     return NextResponse.json(
       { error: { code: error.code, message: t(`errors.${error.code}`, error.params), ...(fields ? { fields } : {}) } },
       { status: error.status },
@@ -41,6 +39,12 @@ export function errorResponse(error: unknown, t: Translator): Response {
   }
   console.error(error);
   return NextResponse.json({ error: { code: "internal", message: t("errors.internal") } }, { status: 500 });
+}
+
+export function translateFields(fields: Record<string, FieldMessage[]>, params: Record<string, string | number>, t: Translator): FieldErrors {
+  return Object.fromEntries(
+    Object.entries(fields).map(([field, messages]) => [field, messages.map((m) => (typeof m === "string" ? t(m, params) : t(m.key, m.values)))]),
+  );
 }
 
 /** A validation failure with zod's issues; translated where it is answered. */

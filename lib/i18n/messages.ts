@@ -2,13 +2,14 @@ import type { Locale } from "./config";
 import enAuth from "./messages/en/auth.json";
 import enEmails from "./messages/en/emails.json";
 import enErrors from "./messages/en/errors.json";
+import enLayout from "./messages/en/layout.json";
 import enPeople from "./messages/en/people.json";
 import enShell from "./messages/en/shell.json";
 
 // One file per area, each holding whole top-level namespaces, so areas can grow without
 // touching each other's files. tests/unit/catalogue.test.ts checks no namespace is defined twice.
 export const catalogueFiles = {
-  en: [enShell, enAuth, enPeople, enErrors, enEmails],
+  en: [enShell, enAuth, enPeople, enErrors, enEmails, enLayout],
 } satisfies Record<Locale, object[]>;
 
 const merge = (files: object[]) => Object.assign({}, ...files) as Record<string, unknown>;

@@ -7,7 +7,11 @@ type HasKey = (key: string) => boolean;
 /** The catalogue key and values for one zod issue; schemas may name a key as their message. */
 export function issueMessage(issue: z.core.$ZodIssue): { key: string; values: Record<string, string | number> } {
   const byCode = messageForCode(issue);
-  return issue.message.startsWith("validation.") ? { key: issue.message, values: byCode.values } : byCode;
+  if (!issue.message.startsWith("validation.")) return byCode;
+  // Custom checks pass their numbers (e.g. { min }) as params for the message.
+  const params = issue.code === "custom" ? (issue.params ?? {}) : {};
+  const extra = Object.fromEntries(Object.entries(params).filter(([, v]) => typeof v === "number" || typeof v === "string"));
+  return { key: issue.message, values: { ...byCode.values, ...extra } };
 }
 
 function messageForCode(issue: z.core.$ZodIssue): { key: string; values: Record<string, string | number> } {

@@ -1,5 +1,5 @@
 import { spawnSync } from "node:child_process";
-import { existsSync, readdirSync, statSync } from "node:fs";
+import { existsSync, readFileSync, readdirSync, statSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { projectRoot } from "./config";
 
@@ -24,6 +24,11 @@ export function buildIfStale(force = false) {
     return;
   }
   console.log("[build] next build (a minute or two the first time)…");
+  // next build adds its dist folder's type paths to tsconfig.json; test and bench builds use
+  // folders of their own (.next-test-N), which must not end up in the committed file.
+  const tsconfig = join(projectRoot, "tsconfig.json");
+  const before = readFileSync(tsconfig, "utf8");
   const result = spawnSync(join(projectRoot, "node_modules", ".bin", "next"), ["build"], { stdio: "inherit", cwd: projectRoot, env: process.env });
+  if ((process.env.NEXT_DIST_DIR || ".next") !== ".next" && readFileSync(tsconfig, "utf8") !== before) writeFileSync(tsconfig, before);
   if (result.status !== 0) throw new Error("next build failed; see the messages above");
 }

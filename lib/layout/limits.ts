@@ -1,0 +1,39 @@
+/** Bounds and tolerances of the layout engine, shared with the request schema (lib/validation/layout.ts). All lengths in mm. */
+
+export const STAMP_SIDE_MIN_MM = 5;
+export const STAMP_SIDE_MAX_MM = 1000;
+export const CLOTH_WIDTH_MIN_MM = 10;
+export const CLOTH_WIDTH_MAX_MM = 5000;
+export const RUN_LENGTH_MIN_MM = 10;
+/** 2 km: longer runs are refused as a likely unit mistake. */
+export const RUN_LENGTH_MAX_MM = 2_000_000;
+export const PIECES_MAX = 10_000;
+export const GAP_MAX_MM = 1000;
+/** A negative gap may overlap neighbours, but the repeat must still advance by at least this much. */
+export const MIN_STEP_MM = 1;
+
+export const OUTLINE_MAX_CHARS = 500_000;
+/** Vertices of the outline after curves are flattened. */
+export const OUTLINE_MAX_VERTICES = 100_000;
+/** Largest distance between a curve and the chords that replace it. */
+export const FLATTEN_TOLERANCE_MM = 0.01;
+/** How far an outline may stray outside its footprint (drawing slack) before it is refused. */
+export const OUTLINE_FOOTPRINT_SLACK_MM = 0.5;
+export const OUTLINE_MIN_AREA_MM2 = 0.01;
+
+/** A diagonal step must be p/q with q at most this, so the layout repeats after q rows. */
+export const DIAGONAL_MAX_DENOMINATOR = 12;
+export const ROTATION_ORDERS = [2, 3, 4, 6] as const;
+
+export const WINDOW_DEFAULT_LENGTH_MM = 1000;
+export const WINDOW_MAX_LENGTH_MM = 10_000;
+export const WINDOW_MAX_IMPRESSIONS = 20_000;
+
+/** Work limits of one area window (one period of rows with its neighbours). */
+export const AREA_WINDOW_MAX_IMPRESSIONS = 20_000;
+export const AREA_WINDOW_MAX_VERTICES = 4_000_000;
+
+/** Integer grid of the polygon engine: 1e4 units per mm (0.1 µm). */
+export const CLIPPER_UNITS_PER_MM = 1e4;
+/** Slack for comparing positions that come from sums of floating-point lengths. */
+export const EPS_MM = 1e-6;
