@@ -3,7 +3,7 @@
 // `npm run dev` does the same with the Next.js dev server. Ctrl-C stops everything it started.
 import { spawn } from "node:child_process";
 import { join } from "node:path";
-import { ensureAuthSecret, loadConfig, projectRoot } from "./lib/config";
+import { ensureAuthSecret, loadConfig, localServicesOn, projectRoot } from "./lib/config";
 import { runMigrations } from "./lib/migrate";
 import { buildIfStale } from "./lib/build";
 import { startStack } from "./lib/stack";
@@ -23,7 +23,8 @@ try {
   const { users } = await import("@/db/schema");
   const { client, db } = database();
   const firstRun = (await db.select({ id: users.id }).from(users).limit(1)).length === 0;
-  if (firstRun) {
+  // Demo people only go into a local database; a managed one is never seeded by starting the app.
+  if (firstRun && localServicesOn()) {
     console.log("[seed] empty database: adding the demo workshop");
     await seedDemo(db);
   }
@@ -37,13 +38,13 @@ try {
 }
 
 const port = env.PORT ?? "3000";
-const app = spawn(join(projectRoot, "node_modules", ".bin", "next"), [dev ? "dev" : "start", "-p", port, "-H", "127.0.0.1"], {
+const app = spawn(join(projectRoot, "node_modules", ".bin", "next"), [dev ? "dev" : "start", "-p", port, "-H", env.CAPGRID_HOST ?? "127.0.0.1"], {
   stdio: "inherit",
   env: process.env,
   cwd: projectRoot,
 });
 
-printSignIns(env.APP_URL);
+if (localServicesOn()) printSignIns(env.APP_URL);
 console.log(`Capgrid: ${env.APP_URL}`);
 if (env.MAIL_VIEWER_URL) console.log(`Captured mail: ${env.MAIL_VIEWER_URL}`);
 console.log("Press Ctrl-C to stop.\n");
