@@ -13,6 +13,16 @@ export interface Actor {
   via: "session" | "token";
 }
 
+export const toActor = (user: User, via: Actor["via"] = "session"): Actor => ({
+  id: user.id,
+  email: user.email,
+  name: user.name,
+  role: user.role,
+  unitSystem: user.unitSystem,
+  locale: user.locale,
+  via,
+});
+
 /** Throws 403 unless the actor's role has the permission (lib/permissions.ts). */
 export function assertCan(actor: Actor, permission: Permission) {
   if (!can(actor.role, permission)) throw new AppError("forbidden");

@@ -4,22 +4,12 @@ import { headers } from "next/headers";
 import { redirect } from "next/navigation";
 import { cache } from "react";
 import { db } from "@/db";
-import { apiTokens, users, type User } from "@/db/schema";
+import { apiTokens, users } from "@/db/schema";
 import { auth } from "@/lib/auth/config";
 import { hashSecret } from "@/lib/auth/secrets";
 import { AppError } from "@/lib/errors";
-import { assertCan, type Actor } from "@/lib/authz";
+import { assertCan, toActor, type Actor } from "@/lib/authz";
 import type { Permission } from "@/lib/permissions";
-
-const toActor = (user: User, via: Actor["via"]): Actor => ({
-  id: user.id,
-  email: user.email,
-  name: user.name,
-  role: user.role,
-  unitSystem: user.unitSystem,
-  locale: user.locale,
-  via,
-});
 
 async function actorFromToken(secret: string): Promise<Actor | null> {
   const [row] = await db

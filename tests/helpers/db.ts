@@ -3,7 +3,6 @@ import { eq } from "drizzle-orm";
 import { database } from "@/db";
 import { users, type Role, type User } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/passwords";
-import type { Actor } from "@/lib/authz";
 
 export const db = () => database().db;
 
@@ -23,12 +22,3 @@ export async function reloadUser(id: string): Promise<User> {
   return user;
 }
 
-export const asActor = (user: User): Actor => ({
-  id: user.id,
-  email: user.email,
-  name: user.name,
-  role: user.role,
-  unitSystem: user.unitSystem,
-  locale: user.locale,
-  via: "session",
-});
