@@ -1,0 +1,28 @@
+export { ScanRejected, scanRejectedStatus, type ScanRejectedCode, type ScanRejectedParams } from "./errors";
+export { detectType, sniffContent, scanContentTypes, scanExtensions, type ScanType, type SniffResult, type RefusedImageType } from "./detect-type";
+export { checkFileName, downloadFileName, MAX_FILE_NAME_LENGTH } from "./file-name";
+export {
+  processScan,
+  decodeGreyRaster,
+  encodeGreyRaster,
+  defaultScanLimits,
+  type ProcessScanOptions,
+  type ProcessedScan,
+  type ScanLimits,
+  type ScanStage,
+  type ScanThumbnail,
+  type AnalysisRaster,
+} from "./process-scan";
+export { physicalSizeMm, impliedDpi, compareWithRecord, MM_PER_INCH, SIZE_WARN_PCT, type SizeMm, type SizeComparison } from "./physical-size";
+export { otsuThreshold, greyHistogram, clampRect, type GreyRaster, type PixelRect, type OtsuResult } from "./otsu";
+export {
+  measureCoverage,
+  renderCoverageOverlay,
+  waxPolarities,
+  type WaxPolarity,
+  type CoverageOptions,
+  type CoverageResult,
+  type OverlayOptions,
+} from "./coverage";
+export { motifHashes, perceptualHash, mirroredHash, dctHash, hamming, nearest, type MotifHashes, type HashCandidate, type HashMatch } from "./phash";
+export { createScanLimiter, scanLimiter, type ScanLimiter } from "./limiter";
