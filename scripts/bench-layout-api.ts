@@ -3,7 +3,7 @@
 // Run: npm run bench -- layout-api
 import { computeLayout, type LayoutInput } from "@/lib/layout";
 import { lobedMotif } from "./lib/motifs";
-import { startTestApp, useTestEnvironment } from "./lib/test-stack";
+import { startTestApp, testEnvironment } from "./lib/test-stack";
 
 const TARGET_MS = 300;
 const RUNS = 21;
@@ -16,7 +16,7 @@ const plan = (vertices: number): LayoutInput => ({
 
 const quantile = (values: number[], q: number) => [...values].sort((a, b) => a - b)[Math.min(values.length - 1, Math.floor(q * values.length))];
 
-const { env, dataDir } = useTestEnvironment(8);
+const { env, dataDir } = testEnvironment(8);
 const app = await startTestApp(dataDir);
 try {
   const { database } = await import("@/db");

@@ -8,9 +8,9 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { ensureChromium } from "./lib/chromium";
 import { projectRoot } from "./lib/config";
-import { startTestApp, useTestEnvironment, type TestApp } from "./lib/test-stack";
+import { startTestApp, testEnvironment, type TestApp } from "./lib/test-stack";
 
-const { env, dataDir } = useTestEnvironment(Number(process.env.CAPGRID_TEST_SLOT ?? 0));
+const { env, dataDir } = testEnvironment(Number(process.env.CAPGRID_TEST_SLOT ?? 0));
 
 const only = process.argv.includes("--only") ? process.argv[process.argv.indexOf("--only") + 1] : undefined;
 const wants = (suite: string) => !only || only === suite;

@@ -36,3 +36,34 @@ export function passwordResetMail(t: Translator, p: { name: string; link: string
     ),
   };
 }
+
+/** To the stamp keepers: someone reported damage to a stamp. */
+export function damageReportMail(t: Translator, p: { code: string; name: string; kind: string; note: string | null; reporter: string; link: string }) {
+  return {
+    subject: t("stampEmails.damage.subject", { code: p.code }),
+    ...layout(
+      [
+        t("stampEmails.damage.greeting"),
+        t("stampEmails.damage.body", { reporter: p.reporter, code: p.code, name: p.name, kind: p.kind }),
+        ...(p.note ? [t("stampEmails.damage.note", { note: p.note })] : []),
+      ],
+      { href: p.link, label: t("stampEmails.damage.action") },
+      t("stampEmails.damage.footer"),
+    ),
+  };
+}
+
+/** To a borrower whose check-out is past its due date. */
+export function overdueReminderMail(t: Translator, p: { borrower: string; code: string; name: string; dueOn: string; workstation: string; link: string }) {
+  return {
+    subject: t("stampEmails.overdue.subject", { code: p.code }),
+    ...layout(
+      [
+        t("stampEmails.overdue.greeting", { name: p.borrower }),
+        t("stampEmails.overdue.body", { code: p.code, name: p.name, dueOn: p.dueOn, workstation: p.workstation }),
+      ],
+      { href: p.link, label: t("stampEmails.overdue.action") },
+      t("stampEmails.overdue.footer"),
+    ),
+  };
+}

@@ -1,8 +1,10 @@
 import type { Database } from "@/db";
+import { seedStamps } from "@/db/seed/stamps";
 import { demoUsers, seedUsers } from "@/db/seed/users";
 
 export async function seedDemo(db: Database) {
   await seedUsers(db);
+  await seedStamps(db);
 }
 
 export function printSignIns(appUrl = process.env.APP_URL ?? "http://localhost:3000") {

@@ -16,7 +16,7 @@ import { startStack, type Stack } from "./stack";
  * PostgreSQL 54339, SMTP 1026, mail view 1081, S3 4569) and folders `.test-data-n`, `.next-test-n`,
  * so test runs and benchmarks can run beside each other and beside `npm start`.
  */
-export function useTestEnvironment(slot: number) {
+export function testEnvironment(slot: number) {
   const port = (base: number) => String(base + 10 * slot);
   const suffix = slot ? `-${slot}` : "";
   Object.assign(process.env, {
@@ -30,6 +30,9 @@ export function useTestEnvironment(slot: number) {
     MAIL_VIEWER_URL: `http://127.0.0.1:${port(1081)}`,
     S3_ENDPOINT: `http://127.0.0.1:${port(4569)}`,
     S3_BUCKET: "capgrid-test",
+    // Small limits, so the hostile-upload test's oversize file stays small (tests/helpers/hostile-files.ts).
+    SCAN_MAX_BYTES: String(8 * 1024 * 1024),
+    SCAN_MAX_PIXELS: "40000000",
     NEXT_DIST_DIR: `.next-test${suffix}`,
     CHROMIUM_PATH: chromiumPath,
   });

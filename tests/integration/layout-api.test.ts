@@ -1,5 +1,6 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import { createUser } from "../helpers/db";
+import { stamps } from "@/db/schema";
+import { createUser, db } from "../helpers/db";
 import { api, signIn, type Session } from "../helpers/http";
 
 let planner: Session;
@@ -91,6 +92,20 @@ describe("POST /api/v1/layout", () => {
     const flat = await api("POST", "/api/v1/layout", { session: planner, body: { ...hundredMetres, stamp: { widthMm: 200, heightMm: 200, outline: "M 0 0 L 100 100 Z" } } });
     expect(flat.status).toBe(422);
     expect(flat.body.error.fields["stamp.outline"][0]).toMatch(/no area/);
+  });
+
+  it("lays out a library stamp by its code, with its scan-measured coverage or its outline", async () => {
+    const suffix = Date.now().toString(36).toUpperCase();
+    await db().insert(stamps).values([
+      { code: `LY-COV-${suffix}`, name: "Half-waxed test stamp", widthMm: 200, heightMm: 200, coverageRatio: 0.5 },
+      // A 100 mm square outline in a 200 mm footprint: a quarter of the footprint carries wax.
+      { code: `LY-OUT-${suffix}`, name: "Outlined test stamp", widthMm: 200, heightMm: 200, coverageRatio: 0.9, outlinePath: "M50 50 H150 V150 H50 Z" },
+    ]);
+    const byCoverage = await api("POST", "/api/v1/layout", { session: planner, body: { ...hundredMetres, stamp: { code: `ly-cov-${suffix}` } } });
+    expect(byCoverage.status).toBe(200);
+    expect(byCoverage.body.waxedAreaPerMetreM2).toBeCloseTo(0.5, 9);
+    const byOutline = await api("POST", "/api/v1/layout", { session: planner, body: { ...hundredMetres, stamp: { code: `LY-OUT-${suffix}` } } });
+    expect(byOutline.body.waxedAreaPerMetreM2).toBeCloseTo(0.25, 9);
   });
 
   it("answers 422 for a stamp code the library does not hold", async () => {

@@ -1,0 +1,268 @@
+"use server";
+
+import { getTranslations } from "next-intl/server";
+import { revalidatePath } from "next/cache";
+import { redirect } from "next/navigation";
+import { z } from "zod";
+import type { FormState } from "@/lib/actions/form-state";
+import { runForm } from "@/lib/actions/run-form";
+import { createLocation, deleteLocation, updateLocation } from "@/lib/data/locations";
+import { sendOverdueReminders } from "@/lib/data/stamp-mail";
+import { AppError } from "@/lib/errors";
+import { changeCondition, checkOutStamp, createStamp, deleteStamp, reportDamage, returnStamp, updateStamp } from "@/lib/data/stamps";
+import { requirePermission } from "@/lib/session";
+import { inchesToMm, ouncesToGrams } from "@/lib/units";
+import {
+  checkoutSchema,
+  conditionChangeSchema,
+  createStampSchema,
+  damageReportSchema,
+  locationIdParamSchema,
+  locationSchema,
+  returnSchema,
+  stampCodeSchema,
+  updateStampSchema,
+} from "@/lib/validation/stamps";
+
+const text = (f: FormData, name: string) => {
+  const v = f.get(name);
+  return typeof v === "string" ? v : "";
+};
+
+/** A number field: empty → null, a decimal comma accepted, anything else NaN (the schema names it). */
+const number = (f: FormData, name: string) => {
+  const v = text(f, name).trim();
+  return v === "" ? null : Number(v.replace(",", "."));
+};
+
+/** The stamp form in the person's units (hidden field unitSystem) → the schema's mm and g. */
+function stampInput(f: FormData, mode: "create" | "update") {
+  const imperial = text(f, "unitSystem") === "imperial";
+  const length = (name: string) => {
+    const n = number(f, name);
+    return n === null || Number.isNaN(n) || !imperial ? n : inchesToMm(n);
+  };
+  const weight = number(f, "weightG");
+  const required = (v: number | null) => v ?? undefined;
+  const input: Record<string, unknown> = {
+    code: text(f, "code"),
+    name: text(f, "name"),
+    widthMm: required(length("widthMm")),
+    heightMm: required(length("heightMm")),
+    stripDepthMm: length("stripDepthMm"),
+    weightG: weight === null || Number.isNaN(weight) || !imperial ? weight : ouncesToGrams(weight),
+    face: text(f, "face") || undefined,
+    mirrored: f.get("mirrored") === "on",
+    twinCode: text(f, "twinCode").trim() || null,
+    maker: text(f, "maker"),
+    madeOn: text(f, "madeOn").trim() || null,
+    locationId: text(f, "locationId") || null,
+    coverageRatio: f.get("coveragePct") !== null ? (() => {
+      const pct = number(f, "coveragePct");
+      return pct === null || Number.isNaN(pct) ? pct : pct / 100;
+    })() : undefined,
+    outlinePath: text(f, "outlinePath").trim() || null,
+    impressionsCount: required(number(f, "impressionsCount")) ?? 0,
+    notes: text(f, "notes"),
+    tags: text(f, "tags")
+      .split(",")
+      .map((s) => s.trim())
+      .filter(Boolean),
+  };
+  if (mode === "create") input.condition = text(f, "condition") || undefined;
+  else input.version = Number(text(f, "version"));
+  return input;
+}
+
+/** The percentage field's errors show under its own name. */
+function renameCoverage(state: FormState): FormState {
+  if (state.fieldErrors?.coverageRatio) {
+    state.fieldErrors.coveragePct = state.fieldErrors.coverageRatio;
+    delete state.fieldErrors.coverageRatio;
+  }
+  return state;
+}
+
+export async function createStampAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  let code: string | undefined;
+  const state = await runForm(
+    formData,
+    createStampSchema,
+    async (input) => {
+      const actor = await requirePermission("stamps:write");
+      code = (await createStamp(actor, input)).code;
+    },
+    (f) => stampInput(f, "create"),
+  );
+  if (state.status === "success" && code) {
+    revalidatePath("/stamps");
+    redirect(`/stamps/${encodeURIComponent(code)}?saved=created`);
+  }
+  return renameCoverage(state);
+}
+
+export async function updateStampAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  const original = stampCodeSchema.safeParse(text(formData, "originalCode"));
+  let code: string | undefined;
+  let conflict = false;
+  const state = await runForm(
+    formData,
+    updateStampSchema,
+    async (input) => {
+      const actor = await requirePermission("stamps:write");
+      if (!original.success) return { status: "error", message: (await getTranslations())("errors.notFound") };
+      try {
+        code = (await updateStamp(actor, original.data, input)).code;
+      } catch (error) {
+        conflict = error instanceof AppError && error.code === "versionConflict";
+        throw error;
+      }
+    },
+    (f) => stampInput(f, "update"),
+  );
+  if (state.status === "success" && code) {
+    revalidatePath("/stamps");
+    redirect(`/stamps/${encodeURIComponent(code)}?saved=updated`);
+  }
+  // The form keeps what was typed and offers the latest saved version beside it.
+  if (conflict) state.data = { conflict: "1" };
+  return renameCoverage(state);
+}
+
+const codeField = z.object({ code: stampCodeSchema });
+
+export async function deleteStampAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  let done = false;
+  const state = await runForm(formData, codeField.extend({ version: z.coerce.number().int().positive() }), async ({ code, version }) => {
+    const actor = await requirePermission("stamps:write");
+    await deleteStamp(actor, code, version);
+    done = true;
+  });
+  if (done) {
+    revalidatePath("/stamps");
+    redirect("/stamps?deleted=1");
+  }
+  return state;
+}
+
+/** Runs an action on one stamp: the code comes from a hidden field, the rest through `schema`. */
+async function onStamp<S extends z.ZodType>(
+  formData: FormData,
+  schema: S,
+  toInput: (f: FormData) => unknown,
+  work: (code: string, input: z.output<S>) => Promise<string>,
+): Promise<FormState> {
+  const code = stampCodeSchema.safeParse(text(formData, "code"));
+  const state = await runForm(formData, schema, async (input) => {
+    if (!code.success) return { status: "error", message: (await getTranslations())("errors.notFound") };
+    return { status: "success", message: await work(code.data, input) };
+  }, toInput);
+  if (state.status === "success" && code.success) revalidatePath(`/stamps/${code.data}`);
+  return state;
+}
+
+const optional = (f: FormData, name: string) => text(f, name).trim() || undefined;
+
+export async function checkoutAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  return onStamp(
+    formData,
+    checkoutSchema,
+    (f) => ({
+      borrowerId: text(f, "borrowerId") && text(f, "borrowerId") !== "other" ? text(f, "borrowerId") : undefined,
+      borrowerName: text(f, "borrowerId") === "other" || !text(f, "borrowerId") ? text(f, "borrowerName") : undefined,
+      borrowerEmail: text(f, "borrowerId") === "other" || !text(f, "borrowerId") ? text(f, "borrowerEmail") : undefined,
+      workstation: text(f, "workstation"),
+      dueOn: text(f, "dueOn"),
+      note: text(f, "note"),
+    }),
+    async (code, input) => {
+      const actor = await requirePermission("stamps:write");
+      const out = await checkOutStamp(actor, code, input);
+      return (await getTranslations())("stamps.checkout.done", { name: out.borrowerName });
+    },
+  );
+}
+
+export async function returnAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  return onStamp(
+    formData,
+    returnSchema,
+    (f) => {
+      const impressions = number(f, "impressions");
+      return { note: text(f, "note"), locationId: optional(f, "locationId") ?? null, impressions: impressions ?? undefined };
+    },
+    async (code, input) => {
+      const actor = await requirePermission("stamps:write");
+      await returnStamp(actor, code, input);
+      return (await getTranslations())("stamps.return.done");
+    },
+  );
+}
+
+export async function reportDamageAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  return onStamp(
+    formData,
+    damageReportSchema,
+    (f) => ({ kind: text(f, "kind") || undefined, note: text(f, "note") }),
+    async (code, input) => {
+      const actor = await requirePermission("stamps:request");
+      await reportDamage(actor, code, input);
+      return (await getTranslations())("stamps.damage.done");
+    },
+  );
+}
+
+export async function changeConditionAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  return onStamp(
+    formData,
+    conditionChangeSchema,
+    (f) => ({ condition: text(f, "condition") || undefined, note: text(f, "note") }),
+    async (code, input) => {
+      const actor = await requirePermission("stamps:write");
+      await changeCondition(actor, code, input);
+      const t = await getTranslations();
+      return t("stamps.condition.done", { condition: t(`stamps.conditions.${input.condition}`) });
+    },
+  );
+}
+
+// --- locations -----------------------------------------------------------------------------
+
+export async function createLocationAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  return runForm(formData, locationSchema, async (input) => {
+    const actor = await requirePermission("stamps:write");
+    const location = await createLocation(actor, input);
+    revalidatePath("/stamps/locations");
+    return { status: "success", message: (await getTranslations())("locations.created", { site: location.site, code: location.code }) };
+  });
+}
+
+export async function locationRowAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  const schema = z.discriminatedUnion("intent", [
+    locationIdParamSchema.extend({ intent: z.literal("delete") }),
+    locationIdParamSchema.extend({ intent: z.literal("describe"), description: z.string().trim().max(300, "validation.tooLong") }),
+  ]);
+  return runForm(formData, schema, async (input) => {
+    const actor = await requirePermission("stamps:write");
+    const t = await getTranslations();
+    if (input.intent === "delete") await deleteLocation(actor, input.id);
+    else await updateLocation(actor, input.id, { description: input.description || null });
+    revalidatePath("/stamps/locations");
+    return { status: "success", message: input.intent === "delete" ? t("locations.deleted") : t("locations.saved") };
+  });
+}
+
+// --- reminders -----------------------------------------------------------------------------------
+
+export async function sendRemindersAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  return runForm(formData, z.object({}), async () => {
+    const actor = await requirePermission("stamps:write");
+    const result = await sendOverdueReminders(actor);
+    revalidatePath("/stamps/out");
+    const t = await getTranslations();
+    const parts = [t("overdue.sent", { count: result.sent.length })];
+    if (result.withoutEmail.length) parts.push(t("overdue.withoutEmail", { names: result.withoutEmail.map((w) => `${w.borrowerName} (${w.code})`).join(", ") }));
+    if (result.failed.length) parts.push(t("overdue.failed", { count: result.failed.length }));
+    return { status: result.failed.length ? "error" : "success", message: parts.join(" ") };
+  });
+}

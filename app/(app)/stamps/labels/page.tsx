@@ -1,0 +1,107 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { getFormatter, getTranslations } from "next-intl/server";
+import QRCode from "qrcode";
+import { sizeText } from "@/components/stamps/measure";
+import { Notice } from "@/components/ui/notice";
+import { PageHeader } from "@/components/ui/panel";
+import { listLocations } from "@/lib/data/locations";
+import { listAllStamps } from "@/lib/data/stamps";
+import { env } from "@/lib/env";
+import { requirePageActor } from "@/lib/session";
+import { stampUrl } from "@/lib/stamps/codes";
+import { queryObject, stampCodeSchema, stampListQuerySchema } from "@/lib/validation/stamps";
+import { PrintButton } from "./print-button";
+
+export async function generateMetadata(): Promise<Metadata> {
+  return { title: (await getTranslations("labels"))("title") };
+}
+
+const MAX_LABELS = 300;
+const qr = (text: string) => QRCode.toString(text, { type: "svg", margin: 0, errorCorrectionLevel: "M" });
+
+type Props = { searchParams: Promise<Record<string, string | string[] | undefined>> };
+
+/** Printable labels: stamp labels (for the filters of the table, or ?codes=) or shelf labels (?kind=shelf). */
+export default async function LabelsPage({ searchParams }: Props) {
+  const actor = await requirePageActor();
+  const raw = await searchParams;
+  const params = new URLSearchParams(Object.entries(raw).flatMap(([k, v]) => (Array.isArray(v) ? v.map((x) => [k, x]) : v ? [[k, v]] : [])));
+  const [t, format] = await Promise.all([getTranslations(), getFormatter()]);
+  const appUrl = env().APP_URL;
+
+  if (params.get("kind") === "shelf") {
+    const site = params.get("site");
+    const locations = (await listLocations(actor)).filter((l) => !site || l.site === site);
+    const labels = await Promise.all(locations.map(async (l) => ({ ...l, svg: await qr(`${appUrl.replace(/\/$/, "")}/stamps?location=${l.id}`) })));
+    return (
+      <>
+        <style>{"@page { size: A4; margin: 10mm; }"}</style>
+        <LabelsHeader title={t("labels.shelfTitle")} intro={t("labels.shelfIntro", { count: labels.length })} />
+        {labels.length === 0 ? <Notice>{t("labels.noneShelf")}</Notice> : null}
+        <div className="grid grid-cols-2 gap-[4mm] print:gap-[3mm]" data-testid="labels">
+          {labels.map((l) => (
+            <article key={l.id} className="flex h-[55mm] break-inside-avoid items-center gap-[5mm] rounded border border-stone-300 bg-white p-[5mm]">
+              <div className="h-[40mm] w-[40mm] shrink-0 [&>svg]:h-full [&>svg]:w-full" dangerouslySetInnerHTML={{ __html: l.svg }} />
+              <div className="min-w-0">
+                <p className="text-sm text-stone-600">{l.site}</p>
+                <p className="font-mono text-4xl font-bold tracking-tight text-stone-900">{l.code}</p>
+                {l.description ? <p className="mt-1 text-sm text-stone-700">{l.description}</p> : null}
+              </div>
+            </article>
+          ))}
+        </div>
+      </>
+    );
+  }
+
+  const codes = (params.get("codes") ?? "").split(",").map((c) => stampCodeSchema.safeParse(c)).filter((r) => r.success).map((r) => r.data);
+  const parsed = stampListQuerySchema.safeParse(queryObject(params));
+  const query = parsed.success ? parsed.data : {};
+  let stamps = await listAllStamps(actor, codes.length ? { codes } : query, MAX_LABELS + 1);
+  const tooMany = stamps.length > MAX_LABELS;
+  stamps = stamps.slice(0, MAX_LABELS);
+  const labels = await Promise.all(stamps.map(async (s) => ({ ...s, svg: await qr(stampUrl(appUrl, s.code)) })));
+  return (
+    <>
+      <style>{"@page { size: A4; margin: 8mm; }"}</style>
+      <LabelsHeader title={t("labels.title")} intro={t("labels.intro", { count: labels.length })} />
+      {tooMany ? <Notice tone="warning" className="mb-4 print:hidden">{t("labels.tooMany", { max: MAX_LABELS })}</Notice> : null}
+      {labels.length === 0 ? <Notice>{t("labels.none")}</Notice> : null}
+      <div className="grid grid-cols-3 gap-[3mm] print:gap-[2mm]" data-testid="labels">
+        {labels.map((s) => (
+          <article key={s.id} data-code={s.code} className="flex h-[38mm] break-inside-avoid items-center gap-[3mm] overflow-hidden rounded border border-stone-300 bg-white p-[3mm]">
+            <div className="h-[30mm] w-[30mm] shrink-0 [&>svg]:h-full [&>svg]:w-full" dangerouslySetInnerHTML={{ __html: s.svg }} />
+            <div className="min-w-0 text-[9pt] leading-tight">
+              <p className="font-mono text-[13pt] font-bold text-stone-900">{s.code}</p>
+              <p className="line-clamp-2 text-stone-800">{s.name}</p>
+              <p className="text-stone-600">{sizeText(s.widthMm, s.heightMm, actor.unitSystem, format.number)}</p>
+              <p className="text-stone-600">{s.location ? `${s.location.site} · ${s.location.code}` : t("stamps.table.noLocation")}</p>
+            </div>
+          </article>
+        ))}
+      </div>
+    </>
+  );
+}
+
+async function LabelsHeader({ title, intro }: { title: string; intro: string }) {
+  const t = await getTranslations();
+  return (
+    <div className="print:hidden">
+      <PageHeader
+        title={title}
+        intro={intro}
+        actions={
+          <div className="flex items-center gap-3">
+            <Link href="/stamps" className="text-sm text-ink-700 hover:underline">
+              {t("labels.back")}
+            </Link>
+            <PrintButton />
+          </div>
+        }
+      />
+      <p className="mb-4 text-sm text-stone-600">{t("labels.howTo")}</p>
+    </div>
+  );
+}

@@ -1,0 +1,269 @@
+"use client";
+
+import Link from "next/link";
+import { useFormatter, useTranslations } from "next-intl";
+import { useRef, useState } from "react";
+import { QrScanner } from "@/components/stamps/qr-scanner";
+import { Button } from "@/components/ui/button";
+import { cn } from "@/components/ui/cn";
+import { Notice } from "@/components/ui/notice";
+import { PageHeader, Panel } from "@/components/ui/panel";
+import type { StockTakeDto } from "@/lib/data/stock-takes";
+import { ApiError, apiFetch } from "@/lib/swr/fetcher";
+import { useStockTake } from "@/lib/swr/use-stock-take";
+
+type Feedback = { tone: "success" | "warning" | "error"; text: string } | null;
+
+export function StockTakeCounter({ initial, canWrite }: { initial: StockTakeDto; canWrite: boolean }) {
+  const t = useTranslations();
+  const format = useFormatter();
+  const { data, mutate } = useStockTake(initial.id, initial);
+  const take = data?.stockTake ?? initial;
+  const open = take.status === "open";
+  const [locationId, setLocationId] = useState(take.locations[0]?.id ?? "");
+  const [code, setCode] = useState("");
+  const [feedback, setFeedback] = useState<Feedback>(null);
+  const [busy, setBusy] = useState(false);
+  const input = useRef<HTMLInputElement>(null);
+  const percent = take.expected ? Math.round((take.seenExpected / take.expected) * 100) : 0;
+
+  async function see(text: string) {
+    if (!text.trim()) return;
+    if (!locationId) {
+      setFeedback({ tone: "error", text: t("stockTake.chooseLocation") });
+      return;
+    }
+    setBusy(true);
+    try {
+      const { sighting } = await apiFetch<{ sighting: { code: string; known: boolean; name: string | null; location: string } }>(`/api/v1/stock-takes/${take.id}/sightings`, {
+        method: "POST",
+        body: JSON.stringify({ code: text, locationId }),
+      });
+      setFeedback(
+        sighting.known
+          ? { tone: "success", text: t("stockTake.seen", { code: sighting.code, name: sighting.name ?? "", place: sighting.location }) }
+          : { tone: "warning", text: t("stockTake.seenUnknown", { code: sighting.code }) },
+      );
+      // A scanner gun may already have typed the next code: clear only the one just marked.
+      setCode((current) => (current === text ? "" : current));
+      await mutate();
+    } catch (e) {
+      const error = e instanceof ApiError ? e : null;
+      setFeedback({ tone: "error", text: error?.fields ? Object.values(error.fields).flat().join(" ") : (error?.message ?? t("common.error")) });
+    } finally {
+      setBusy(false);
+      input.current?.focus();
+    }
+  }
+
+  async function post(path: string, confirmText: string, done: (body: { moved?: string[] }) => string) {
+    if (!window.confirm(confirmText)) return;
+    setBusy(true);
+    try {
+      const body = await apiFetch<{ moved?: string[] }>(`/api/v1/stock-takes/${take.id}/${path}`, { method: "POST" });
+      setFeedback({ tone: "success", text: done(body) });
+      await mutate();
+    } catch (e) {
+      setFeedback({ tone: "error", text: e instanceof ApiError ? e.message : t("common.error") });
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  async function undo(c: string) {
+    try {
+      await apiFetch(`/api/v1/stock-takes/${take.id}/sightings/${encodeURIComponent(c)}`, { method: "DELETE" });
+      await mutate();
+    } catch (e) {
+      setFeedback({ tone: "error", text: e instanceof ApiError ? e.message : t("common.error") });
+    }
+  }
+
+  const place = (p: { label: string } | null) => p?.label ?? t("stockTake.nowhere");
+  const stampLink = (c: string) => (
+    <Link href={`/stamps/${encodeURIComponent(c)}`} className="font-mono font-medium text-ink-700 hover:underline">
+      {c}
+    </Link>
+  );
+
+  return (
+    <>
+      <PageHeader
+        title={t("stockTake.countAt", { site: take.site })}
+        intro={t("stockTake.startedBy", { name: take.startedByName ?? "—", when: format.dateTime(new Date(take.startedAt), { dateStyle: "medium", timeStyle: "short" }) })}
+        actions={
+          <Link href="/stamps/stock-takes" className="text-sm text-ink-700 hover:underline">
+            {t("stockTake.allCounts")}
+          </Link>
+        }
+      />
+      <div className="grid gap-6 lg:grid-cols-[2fr_3fr]">
+        <div className="space-y-6">
+          <Panel title={t("stockTake.progress")}>
+            <p className="text-3xl font-semibold tabular-nums text-stone-900" data-testid="progress">
+              {t("stockTake.seenOfExpected", { seen: take.seenExpected, expected: take.expected })}
+            </p>
+            <div className="mt-2 h-3 overflow-hidden rounded-full bg-stone-200" role="progressbar" aria-valuemin={0} aria-valuemax={take.expected} aria-valuenow={take.seenExpected} aria-label={t("stockTake.progress")}>
+              <div className="h-full bg-emerald-600 transition-all" style={{ width: `${percent}%` }} />
+            </div>
+            <p className="mt-2 text-sm text-stone-600">
+              {t("stockTake.summary", { missing: take.missing.length, misplaced: take.misplaced.length, unexpected: take.unexpected.length, out: take.checkedOut.length })}
+            </p>
+            {!open ? <Notice className="mt-3">{t("stockTake.closedOn", { when: format.dateTime(new Date(take.endedAt!), { dateStyle: "medium", timeStyle: "short" }) })}</Notice> : null}
+          </Panel>
+
+          {open && canWrite ? (
+            <Panel title={t("stockTake.scanTitle")} intro={t("stockTake.scanIntro")}>
+              <form
+                className="space-y-3"
+                aria-label={t("stockTake.scanTitle")}
+                onSubmit={(e) => {
+                  e.preventDefault();
+                  void see(code);
+                }}
+              >
+                <label className="block space-y-1 text-sm font-medium text-stone-800">
+                  {t("stockTake.countingAt")}
+                  <select value={locationId} onChange={(e) => setLocationId(e.target.value)} className="block w-full rounded-md border border-stone-300 bg-white px-3 py-2 text-sm font-normal">
+                    {take.locations.map((l) => (
+                      <option key={l.id} value={l.id}>
+                        {l.code}
+                      </option>
+                    ))}
+                  </select>
+                </label>
+                <label className="block space-y-1 text-sm font-medium text-stone-800">
+                  {t("stockTake.code")}
+                  <span className="flex gap-2">
+                    <input
+                      ref={input}
+                      value={code}
+                      onChange={(e) => setCode(e.target.value)}
+                      autoFocus
+                      autoComplete="off"
+                      placeholder={t("stockTake.codePlaceholder")}
+                      className="block w-full rounded-md border border-stone-300 px-3 py-2 font-mono text-sm font-normal uppercase placeholder:normal-case"
+                    />
+                    {/* Never disabled: a scanner gun types the next code while the last one is being saved. */}
+                    <Button type="submit">
+                      {t("stockTake.mark")}
+                    </Button>
+                  </span>
+                </label>
+                {feedback ? (
+                  <Notice tone={feedback.tone} className="text-sm">
+                    {feedback.text}
+                  </Notice>
+                ) : null}
+              </form>
+              <div className="mt-4">
+                <QrScanner onCode={(text) => void see(text)} />
+              </div>
+            </Panel>
+          ) : feedback ? (
+            <Notice tone={feedback.tone}>{feedback.text}</Notice>
+          ) : null}
+
+          {canWrite ? (
+            <Panel title={t("stockTake.finishTitle")}>
+              <div className="flex flex-wrap gap-2">
+                <Button
+                  type="button"
+                  variant="secondary"
+                  disabled={busy || take.relocatable === 0}
+                  onClick={() => post("relocate", t("stockTake.relocateConfirm", { count: take.relocatable }), (b) => t("stockTake.relocated", { count: b.moved?.length ?? 0 }))}
+                >
+                  {t("stockTake.relocate", { count: take.relocatable })}
+                </Button>
+                {open ? (
+                  <Button type="button" variant="danger" disabled={busy} onClick={() => post("end", t("stockTake.endConfirm"), () => t("stockTake.ended"))}>
+                    {t("stockTake.end")}
+                  </Button>
+                ) : null}
+              </div>
+            </Panel>
+          ) : null}
+        </div>
+
+        <div className="space-y-6">
+          <Panel title={t("stockTake.recent")}>
+            {take.recent.length === 0 ? (
+              <p className="text-sm text-stone-500">{t("stockTake.nothingYet")}</p>
+            ) : (
+              <ul className="divide-y divide-stone-100 text-sm" data-testid="recent">
+                {take.recent.map((r) => (
+                  <li key={r.code} className="flex items-center justify-between gap-2 py-1.5">
+                    <span>
+                      {stampLink(r.code)} <span className="text-stone-600">{r.name ?? t("stockTake.unknownStamp")}</span>
+                      <span className="block text-xs text-stone-500">{place(r.seenAt)}</span>
+                    </span>
+                    <span className="flex items-center gap-2">
+                      <span
+                        className={cn(
+                          "rounded-full px-2 py-0.5 text-xs font-medium",
+                          r.result === "found" ? "bg-emerald-100 text-emerald-900" : r.result === "misplaced" ? "bg-amber-100 text-amber-900" : "bg-red-100 text-red-900",
+                        )}
+                      >
+                        {t(`stockTake.result.${r.result}`)}
+                      </span>
+                      {open && canWrite ? (
+                        <button type="button" className="text-xs text-stone-500 underline" onClick={() => undo(r.code)} aria-label={t("stockTake.undoOf", { code: r.code })}>
+                          {t("stockTake.undo")}
+                        </button>
+                      ) : null}
+                    </span>
+                  </li>
+                ))}
+              </ul>
+            )}
+          </Panel>
+
+          <Panel title={t("stockTake.reportTitle")}>
+            <div className="space-y-5 text-sm" data-testid="report">
+              <section>
+                <h3 className="font-medium text-stone-900">{t("stockTake.missing", { count: take.missing.length })}</h3>
+                {take.missing.length ? (
+                  <ul className="mt-1 grid gap-1 sm:grid-cols-2">
+                    {take.missing.map((m) => (
+                      <li key={m.code}>
+                        {stampLink(m.code)} <span className="text-stone-600">{t("stockTake.recordedAt", { place: place(m.recorded) })}</span>
+                      </li>
+                    ))}
+                  </ul>
+                ) : (
+                  <p className="text-stone-500">{t("stockTake.noneMissing")}</p>
+                )}
+              </section>
+              <section>
+                <h3 className="font-medium text-stone-900">{t("stockTake.misplaced", { count: take.misplaced.length })}</h3>
+                <ul className="mt-1 space-y-1">
+                  {take.misplaced.map((m) => (
+                    <li key={m.code}>
+                      {stampLink(m.code)} <span className="text-stone-600">{t("stockTake.recordedSeen", { recorded: place(m.recorded), seen: place(m.seenAt) })}</span>
+                    </li>
+                  ))}
+                </ul>
+              </section>
+              <section>
+                <h3 className="font-medium text-stone-900">{t("stockTake.unexpected", { count: take.unexpected.length })}</h3>
+                <ul className="mt-1 space-y-1">
+                  {take.unexpected.map((u) => (
+                    <li key={u.code}>
+                      {stampLink(u.code)} <span className="text-stone-600">{t(`stockTake.reasons.${u.reason}`, { recorded: place(u.recorded), seen: place(u.seenAt) })}</span>
+                    </li>
+                  ))}
+                </ul>
+              </section>
+              {take.checkedOut.length ? (
+                <section>
+                  <h3 className="font-medium text-stone-900">{t("stockTake.out", { count: take.checkedOut.length })}</h3>
+                  <p className="text-stone-600">{take.checkedOut.map((c) => c.code).join(", ")}</p>
+                </section>
+              ) : null}
+            </div>
+          </Panel>
+        </div>
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,34 @@
+import { gramsToOunces, mmToInches } from "@/lib/units";
+
+/**
+ * Numbers for display in the user's unit system. Stored values are mm and g; imperial shows
+ * inches (1 in = 25.4 mm exactly) and ounces (1 oz = 28.349 523 125 g). Pure.
+ */
+export type UnitSystem = "metric" | "imperial";
+
+export interface Shown {
+  value: number;
+  unit: "mm" | "cm" | "in" | "g" | "kg" | "oz";
+  /** Digits after the decimal point worth showing. */
+  digits: number;
+}
+
+export function lengthFor(mm: number, system: UnitSystem): Shown {
+  return system === "imperial" ? { value: mmToInches(mm), unit: "in", digits: 2 } : { value: mm, unit: "mm", digits: 1 };
+}
+
+export function massFor(g: number, system: UnitSystem): Shown {
+  if (system === "imperial") return { value: gramsToOunces(g), unit: "oz", digits: 1 };
+  return g >= 1000 ? { value: g / 1000, unit: "kg", digits: 2 } : { value: g, unit: "g", digits: 0 };
+}
+
+/** What a form shows in a length field (4 decimals in inches, so 0.1 mm survives a round trip). */
+export function lengthInput(mm: number | null | undefined, system: UnitSystem): string {
+  if (mm === null || mm === undefined) return "";
+  return system === "imperial" ? String(Number(mmToInches(mm).toFixed(4))) : String(mm);
+}
+
+export function massInput(g: number | null | undefined, system: UnitSystem): string {
+  if (g === null || g === undefined) return "";
+  return system === "imperial" ? String(Number(gramsToOunces(g).toFixed(2))) : String(g);
+}
