@@ -92,6 +92,10 @@ const DEFAULT_THUMBNAILS = [256, 1024] as const;
 const DEFAULT_ANALYSIS_SIDE = 2048;
 const SCREEN_DEFAULT_DPI = new Set([72, 96]);
 
+// libvips' operation cache keys buffer inputs by address: a freed upload's address reused by the
+// next one could hand back the earlier decode. Every scan is decoded once, so the cache buys nothing.
+sharp.cache(false);
+
 /** Decoder options on every sharp call that reads uploaded bytes. */
 function decoderOptions(maxPixels: number): SharpOptions {
   // failOn "warning": a scan the decoder has to guess about is refused rather than stored half-read.
