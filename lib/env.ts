@@ -1,6 +1,9 @@
 import "server-only";
 import { z } from "zod";
 
+// An empty value (as .env.example leaves it) means "use the default".
+const optionalCount = z.preprocess((v) => (v === "" ? undefined : v), z.coerce.number().int().positive().optional());
+
 // Parsed once at start-up; a missing or malformed variable stops the app with a clear message.
 const schema = z.object({
   DATABASE_URL: z.url(),
@@ -19,6 +22,8 @@ const schema = z.object({
   S3_ACCESS_KEY_ID: z.string().min(1),
   S3_SECRET_ACCESS_KEY: z.string().min(1),
   S3_FORCE_PATH_STYLE: z.stringbool().default(true),
+  SCAN_MAX_BYTES: optionalCount,
+  SCAN_MAX_PIXELS: optionalCount,
 });
 
 export type Env = z.infer<typeof schema>;

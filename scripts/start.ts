@@ -6,6 +6,7 @@ import { join } from "node:path";
 import { ensureAuthSecret, loadConfig, localServicesOn, projectRoot } from "./lib/config";
 import { runMigrations } from "./lib/migrate";
 import { buildIfStale } from "./lib/build";
+import { objectStoreFromEnv } from "./lib/object-store-config";
 import { startStack } from "./lib/stack";
 import { printSignIns, seedDemo } from "./lib/seed";
 
@@ -18,6 +19,8 @@ let stack: Awaited<ReturnType<typeof startStack>> | undefined;
 try {
   stack = await startStack(dataDir);
   await runMigrations(env.DATABASE_URL!);
+  // A real bucket may not exist yet on a first deployment; the local fake creates its own.
+  await objectStoreFromEnv(env).ensureBucket();
 
   const { database } = await import("@/db");
   const { users } = await import("@/db/schema");

@@ -74,6 +74,11 @@ export async function StampHistory({ events, unitSystem }: { events: StampEventD
         return { text: t("stamps.history.damageReported", { actor: e.actorName, kind: e.to ? t(`stamps.damageKinds.${e.to}` as never) : none }) };
       case "twin_linked":
         return e.to ? { text: t("stamps.history.twinLinked", { actor: e.actorName, code: e.to }) } : { text: t("stamps.history.twinUnlinked", { actor: e.actorName, code: e.from ?? none }) };
+      case "scanned":
+        return {
+          text: t("stamps.history.scanned", { actor: e.actorName, kind: t(`scans.kindShort.${d.kind === "print" ? "print" : "face"}` as never) }),
+          extra: d.fileName ? [String(d.fileName)] : undefined,
+        };
       case "seen_in_stock_take":
         return { text: t("stamps.history.seen", { actor: e.actorName, place: e.to ?? none }) };
       default:

@@ -14,6 +14,8 @@ import type {
   StampListQuery,
   UpdateStampInput,
 } from "@/lib/validation/stamps";
+import { deleteObjects } from "@/lib/s3";
+import { scanObjectKeys } from "./scans";
 import { isUniqueViolation, locationLabel, recordEvent, todayIso } from "./stamp-events";
 import { notifyKeepersOfDamage } from "./stamp-mail";
 
@@ -538,12 +540,16 @@ export async function updateStamp(actor: Actor, code: string, patch: UpdateStamp
 
 export async function deleteStamp(actor: Actor, code: string, version?: number) {
   assertCan(actor, "stamps:write");
-  await db.transaction(async (tx) => {
+  const scanKeys = await db.transaction(async (tx) => {
     const stamp = await findStamp(tx, code, true);
     if (version !== undefined && version !== stamp.version) throw new AppError("versionConflict");
     if (await openCheckoutOf(tx, stamp.id)) throw new AppError("stampCheckedOut");
+    const keys = await scanObjectKeys(stamp.id, tx);
     await tx.delete(stamps).where(eq(stamps.id, stamp.id));
+    return keys;
   });
+  // The rows went with the stamp (cascade); the files go once the delete is committed.
+  if (scanKeys.length) await deleteObjects(scanKeys);
 }
 
 // --- condition and damage -------------------------------------------------------------------

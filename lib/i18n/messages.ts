@@ -4,13 +4,14 @@ import enEmails from "./messages/en/emails.json";
 import enErrors from "./messages/en/errors.json";
 import enLayout from "./messages/en/layout.json";
 import enPeople from "./messages/en/people.json";
+import enScans from "./messages/en/scans.json";
 import enShell from "./messages/en/shell.json";
 import enStamps from "./messages/en/stamps.json";
 
 // One file per area, each holding whole top-level namespaces, so areas can grow without
 // touching each other's files. tests/unit/catalogue.test.ts checks no namespace is defined twice.
 export const catalogueFiles = {
-  en: [enShell, enAuth, enPeople, enErrors, enEmails, enLayout, enStamps],
+  en: [enShell, enAuth, enPeople, enErrors, enEmails, enLayout, enStamps, enScans],
 } satisfies Record<Locale, object[]>;
 
 const merge = (files: object[]) => Object.assign({}, ...files) as Record<string, unknown>;

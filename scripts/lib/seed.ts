@@ -1,10 +1,13 @@
 import type { Database } from "@/db";
+import { seedScans } from "@/db/seed/scans";
 import { seedStamps } from "@/db/seed/stamps";
 import { demoUsers, seedUsers } from "@/db/seed/users";
+import { objectStoreFromEnv } from "./object-store-config";
 
 export async function seedDemo(db: Database) {
   await seedUsers(db);
   await seedStamps(db);
+  await seedScans(db, objectStoreFromEnv());
 }
 
 export function printSignIns(appUrl = process.env.APP_URL ?? "http://localhost:3000") {

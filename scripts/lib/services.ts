@@ -65,7 +65,8 @@ export async function startObjectStore(opts: { port: number; dir: string; bucket
   const child = startChild(
     "s3",
     bin("s3rver"),
-    ["-d", opts.dir, "-a", "127.0.0.1", "-p", String(opts.port), "--silent", "--configure-bucket", opts.bucket],
+    // The CORS rule lets browsers PUT scans to presigned URLs from the app's origin.
+    ["-d", opts.dir, "-a", "127.0.0.1", "-p", String(opts.port), "--silent", "--configure-bucket", opts.bucket, join(projectRoot, "scripts", "s3-cors.xml")],
     opts.quiet ?? true,
   );
   await waitForPort(opts.port);

@@ -157,8 +157,14 @@ const SVG_WITH_SCRIPT = `<svg xmlns="http://www.w3.org/2000/svg" width="400" hei
  * image, zero bytes, an oversize file, and file names that try path traversal or hide characters.
  */
 export async function hostileFiles(limits: HostileLimits = hostileLimits): Promise<HostileFile[]> {
-  const base = sharp({ create: { width: 320, height: 240, channels: 3, background: "#c8b89a", noise: { type: "gaussian", mean: 120, sigma: 40 } } });
-  const rendered = await base.clone().png().toBuffer();
+  // Seeded noise (not sharp's random noise), so every run builds byte-identical files and each is refused the same way.
+  const pixels = Buffer.alloc(320 * 240 * 3);
+  let seed = 0x2f6b1c3d;
+  for (let i = 0; i < pixels.length; i++) {
+    seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0;
+    pixels[i] = 80 + (seed >>> 25);
+  }
+  const rendered = await sharp(pixels, { raw: { width: 320, height: 240, channels: 3 } }).png().toBuffer();
   const source = sharp(rendered);
   const png = await source.clone().png().toBuffer();
   const jpeg = await source.clone().jpeg({ quality: 85 }).toBuffer();

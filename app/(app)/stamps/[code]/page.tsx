@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { getFormatter, getTranslations } from "next-intl/server";
+import { StampScans } from "@/components/scans/stamp-scans";
 import { ConditionBadge, OutBadge } from "@/components/stamps/condition-badge";
 import { Footprint } from "@/components/stamps/footprint";
 import { StampHistory } from "@/components/stamps/history";
@@ -157,6 +158,8 @@ export default async function StampPage({ params, searchParams }: Props) {
             </div>
             {stamp.notes ? <p className="mt-4 whitespace-pre-line border-t border-stone-100 pt-3 text-sm text-stone-700">{stamp.notes}</p> : null}
           </Panel>
+
+          <StampScans actor={actor} code={stamp.code} coverageRatio={stamp.coverageRatio} />
 
           <Panel title={t("stamps.history.title")}>
             <StampHistory events={history} unitSystem={units} />
