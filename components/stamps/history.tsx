@@ -75,10 +75,7 @@ export async function StampHistory({ events, unitSystem }: { events: StampEventD
       case "twin_linked":
         return e.to ? { text: t("stamps.history.twinLinked", { actor: e.actorName, code: e.to }) } : { text: t("stamps.history.twinUnlinked", { actor: e.actorName, code: e.from ?? none }) };
       case "scanned":
-        return {
-          text: t("stamps.history.scanned", { actor: e.actorName, kind: t(`scans.kindShort.${d.kind === "print" ? "print" : "face"}` as never) }),
-          extra: d.fileName ? [String(d.fileName)] : undefined,
-        };
+        return { text: t("stamps.history.scanned", { actor: e.actorName, kind: t(`scans.kindShort.${d.kind === "print" ? "print" : "face"}` as never) }) };
       case "seen_in_stock_take":
         return { text: t("stamps.history.seen", { actor: e.actorName, place: e.to ?? none }) };
       default:
