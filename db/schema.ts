@@ -327,4 +327,5 @@ export const stampScans = pgTable(
 );
 
 export type StampScan = typeof stampScans.$inferSelect;
+export type NewStampScan = typeof stampScans.$inferInsert;
 export type ScanKind = (typeof scanKindEnum.enumValues)[number];

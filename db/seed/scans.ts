@@ -5,6 +5,7 @@ import { newObjectKey, type ObjectStore } from "@/lib/object-store";
 import { defaultScanLimits, encodeGreyRaster, processScan } from "@/lib/scans";
 import { motifSvg, renderScan, type ScanStyle } from "./scan-art";
 import { demoUsers } from "./users";
+import { scanKeys, scanRow } from "@/lib/data/scan-rows";
 
 // Demo scans: invented motif artwork (db/seed/scan-art.ts) rendered at a known DPI, run through the same
 // pipeline as an upload (lib/scans), stored in the object store and recorded like a keeper's upload. A mirror
@@ -66,7 +67,7 @@ export async function seedScans(db: Database, store: ObjectStore, options: SeedS
       const processed = await processScan(bytes, { ...defaultScanLimits, fileName, polarity });
       const root = newObjectKey(`scans/${stamp.id}`);
       const [thumb, large] = [processed.thumbnails[0], processed.thumbnails[processed.thumbnails.length - 1]];
-      const keys = { objectKey: `${root}/original`, thumbKey: `${root}/thumb`, largeKey: `${root}/large`, rasterKey: `${root}/raster` };
+      const keys = scanKeys(root);
       await Promise.all([
         store.putObject(keys.objectKey, processed.original.bytes, { contentType: processed.original.contentType }),
         store.putObject(keys.thumbKey, thumb.bytes, { contentType: "image/webp" }),
@@ -76,27 +77,7 @@ export async function seedScans(db: Database, store: ObjectStore, options: SeedS
       await db.transaction(async (tx) => {
         const [row] = await tx
           .insert(stampScans)
-          .values({
-            stampId: stamp.id,
-            kind: style,
-            fileName,
-            contentType: processed.original.contentType,
-            ...keys,
-            widthPx: processed.widthPx,
-            heightPx: processed.heightPx,
-            dpi: processed.dpi,
-            dpiSource: processed.dpiSource,
-            sizeBytes: processed.sizeBytes,
-            sha256: processed.sha256,
-            polarity,
-            threshold: processed.coverage.threshold,
-            otsuThreshold: processed.coverage.otsuThreshold,
-            coverageRatio: processed.coverage.ratio,
-            phash: processed.hashes.hash,
-            phashMirrored: processed.hashes.mirroredHash,
-            uploadedBy: keeper?.id ?? null,
-            uploadedByName: keeper?.name ?? "Demo data",
-          })
+          .values(scanRow({ stampId: stamp.id, kind: style, fileName, processed, keys, polarity, coverage: processed.coverage, uploader: { id: keeper?.id ?? null, name: keeper?.name ?? "Demo data" } }))
           .returning({ id: stampScans.id });
         await tx.insert(stampEvents).values({
           stampId: stamp.id,

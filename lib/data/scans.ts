@@ -31,6 +31,7 @@ import {
 import { deleteObjects, getObjectBytes, headObject, newObjectKey, objectStore, ObjectTooLarge, presignPut, putObject } from "@/lib/s3";
 import { polarityForKind, type CompleteScanInput, type PresignScanInput, type SaveCoverageInput } from "@/lib/validation/scans";
 import { isUniqueViolation, recordEvent } from "./stamp-events";
+import { scanKeys, scanRow } from "./scan-rows";
 
 // --- limits and errors ---------------------------------------------------------------------
 
@@ -306,7 +307,7 @@ export async function completeScanUpload(actor: Actor, code: string, input: Comp
 
     const root = newObjectKey(`scans/${stamp.id}`);
     const [thumb, large] = [256, 1024].map((side) => processed.thumbnails.find((t) => t.longSidePx === side) ?? processed.thumbnails[processed.thumbnails.length - 1]);
-    const keys = { objectKey: `${root}/original`, thumbKey: `${root}/thumb`, largeKey: `${root}/large`, rasterKey: `${root}/raster` };
+    const keys = scanKeys(root);
     storedKeys = Object.values(keys);
     await Promise.all([
       putObject(keys.objectKey, processed.original.bytes, { contentType: processed.original.contentType }),
@@ -320,27 +321,7 @@ export async function completeScanUpload(actor: Actor, code: string, input: Comp
       row = await db.transaction(async (tx) => {
         const [inserted] = await tx
           .insert(stampScans)
-          .values({
-            stampId: stamp.id,
-            kind: input.kind,
-            fileName: input.fileName,
-            contentType: processed.original.contentType,
-            ...keys,
-            widthPx: processed.widthPx,
-            heightPx: processed.heightPx,
-            dpi: processed.dpi,
-            dpiSource: processed.dpiSource,
-            sizeBytes: processed.sizeBytes,
-            sha256: processed.sha256,
-            polarity,
-            threshold: coverage.threshold,
-            otsuThreshold: coverage.otsuThreshold,
-            coverageRatio: coverage.ratio,
-            phash: processed.hashes.hash,
-            phashMirrored: processed.hashes.mirroredHash,
-            uploadedBy: actor.id,
-            uploadedByName: actor.name,
-          })
+          .values(scanRow({ stampId: stamp.id, kind: input.kind, fileName: input.fileName, processed, keys, polarity, coverage, uploader: actor }))
           .returning();
         await recordEvent(tx, stamp.id, actor, {
           kind: "scanned",
