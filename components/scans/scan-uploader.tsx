@@ -1,6 +1,6 @@
 "use client";
 
-import { useRef, useState } from "react";
+import { useRef, useState, useSyncExternalStore } from "react";
 import { useTranslations } from "next-intl";
 import { Button } from "@/components/ui/button";
 import { cn } from "@/components/ui/cn";
@@ -48,9 +48,13 @@ function putWithProgress(upload: ScanUpload, file: File, onProgress: (share: num
  * Drop or pick scan files; each goes to the store by a presigned PUT with its own progress bar, then the
  * server checks and measures it. Files go one after another, so a batch does not crowd the server's queue.
  */
+const noSubscription = () => () => {};
+
 export function ScanUploader({ code, maxBytes, onStored }: { code: string; maxBytes: number; onStored: (scan: ScanDto) => void }) {
   const t = useTranslations("scans");
   const [items, setItems] = useState<Item[]>([]);
+  // False in the server HTML and until React has hydrated: a file picked before then would be lost.
+  const hydrated = useSyncExternalStore(noSubscription, () => true, () => false);
   const [kind, setKind] = useState<ScanKindValue>("print");
   const [dpi, setDpi] = useState("");
   const [dragging, setDragging] = useState(false);
@@ -162,7 +166,7 @@ export function ScanUploader({ code, maxBytes, onStored }: { code: string; maxBy
               multiple
               accept="image/png,image/jpeg,image/tiff,image/webp,.png,.jpg,.jpeg,.tif,.tiff,.webp"
               className="sr-only"
-              disabled={dpiInvalid}
+              disabled={dpiInvalid || !hydrated}
               onChange={(e) => {
                 add(e.target.files);
                 e.target.value = "";

@@ -29,6 +29,8 @@ describe("a stamp keeper with a scan", () => {
 
     // A 100 mm wax print at 254 DPI: a dark disc of radius 30 mm, so about π·30²/100² = 28.3 % wax (πr²).
     const { png } = await shapeScan({ dpi: 254, sideMm: 100, body: `<circle cx="50" cy="50" r="30"/>`, ink: "#1c1917", ground: "#ffffff" });
+    // The picker is enabled once the page has hydrated; a file set before that would be lost.
+    await page.locator('[data-testid="scan-file-input"]:not([disabled])').waitFor({ state: "attached" });
     await page.getByTestId("scan-file-input").setInputFiles({ name: "disc-print.png", mimeType: "image/png", buffer: png });
 
     const bar = page.getByRole("progressbar", { name: "Upload of disc-print.png" });
