@@ -208,6 +208,26 @@ export function svgPixelSize(svg: string, dpi: number): { widthPx: number; heigh
   return { widthPx: Math.round((mm("width") / 25.4) * dpi), heightPx: Math.round((mm("height") / 25.4) * dpi) };
 }
 
+function hashString(text: string): number {
+  let h = 2166136261;
+  for (let i = 0; i < text.length; i++) h = Math.imul(h ^ text.charCodeAt(i), 16777619) >>> 0;
+  return h;
+}
+
+/** Grey grain around 128 with roughly Gaussian spread `sigma` (sum of four uniforms), from a seeded generator. */
+function seededGrain(length: number, sigma: number, seed: number): Buffer {
+  const out = Buffer.alloc(length);
+  let state = seed || 1;
+  const next = () => {
+    state = (Math.imul(state, 1664525) + 1013904223) >>> 0;
+    return state / 2 ** 32;
+  };
+  // Four uniforms on [0, 1) sum to mean 2 and variance 1/3.
+  const scale = sigma * Math.sqrt(3);
+  for (let i = 0; i < length; i++) out[i] = Math.max(0, Math.min(255, Math.round(128 + (next() + next() + next() + next() - 2) * scale)));
+  return out;
+}
+
 /**
  * Renders an SVG sized in mm to a scan at `dpi` with sharp: rasterised to px = mm / 25.4 × dpi (the root size is
  * rewritten in pixels and drawn at 72 DPI, where libvips maps one SVG pixel to one output pixel), cloth grain from
@@ -222,11 +242,8 @@ export async function renderScan(svg: string, dpi: number, options: RenderScanOp
   const raw = { width: widthPx, height: heightPx, channels: 3 as const };
   let pixels = await sharp(Buffer.from(sized), { density: 72, limitInputPixels: false }).flatten({ background: "#ffffff" }).removeAlpha().raw().toBuffer();
   if (grain > 0) {
-    const noise = await sharp({
-      create: { width: widthPx, height: heightPx, channels: 3, background: "#808080", noise: { type: "gaussian", mean: 128, sigma: 60 * grain } },
-    })
-      .raw()
-      .toBuffer();
+    // Seeded from the drawing, so the same motif always renders to the same bytes (demo data and tests repeat).
+    const noise = seededGrain(widthPx * heightPx * 3, 60 * grain, hashString(svg));
     pixels = await sharp(pixels, { raw })
       .composite([{ input: noise, raw, blend: "soft-light" }])
       .removeAlpha()

@@ -4,6 +4,7 @@ import { promisify } from "node:util";
 import { crc32, deflate } from "node:zlib";
 import sharp from "sharp";
 import type { ScanRejectedCode } from "@/lib/scans";
+import { seededNoisePng } from "./scan-images";
 
 export interface HostileFile {
   /** What the file tries. */
@@ -158,13 +159,7 @@ const SVG_WITH_SCRIPT = `<svg xmlns="http://www.w3.org/2000/svg" width="400" hei
  */
 export async function hostileFiles(limits: HostileLimits = hostileLimits): Promise<HostileFile[]> {
   // Seeded noise (not sharp's random noise), so every run builds byte-identical files and each is refused the same way.
-  const pixels = Buffer.alloc(320 * 240 * 3);
-  let seed = 0x2f6b1c3d;
-  for (let i = 0; i < pixels.length; i++) {
-    seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0;
-    pixels[i] = 80 + (seed >>> 25);
-  }
-  const rendered = await sharp(pixels, { raw: { width: 320, height: 240, channels: 3 } }).png().toBuffer();
+  const rendered = await seededNoisePng(320, 240, { mean: 140, sigma: 30 });
   const source = sharp(rendered);
   const png = await source.clone().png().toBuffer();
   const jpeg = await source.clone().jpeg({ quality: 85 }).toBuffer();

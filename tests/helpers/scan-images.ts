@@ -34,3 +34,19 @@ export async function decodeGrey(bytes: Buffer): Promise<GreyRaster> {
 export async function decodeRgb(bytes: Buffer): Promise<Buffer> {
   return sharp(bytes).removeAlpha().toColourspace("srgb").raw().toBuffer();
 }
+
+/**
+ * A PNG of grain around `mean` with roughly Gaussian spread `sigma` (sum of four uniforms) from a seeded
+ * generator: the same bytes every run, unlike sharp's random noise, so tests built on it never flake.
+ */
+export async function seededNoisePng(width: number, height: number, options: { mean: number; sigma: number; seed?: number }): Promise<Buffer> {
+  const pixels = Buffer.alloc(width * height * 3);
+  let state = options.seed ?? 0x2f6b1c3d;
+  const next = () => {
+    state = (Math.imul(state, 1664525) + 1013904223) >>> 0;
+    return state / 2 ** 32;
+  };
+  const scale = options.sigma * Math.sqrt(3);
+  for (let i = 0; i < pixels.length; i++) pixels[i] = Math.max(0, Math.min(255, Math.round(options.mean + (next() + next() + next() + next() - 2) * scale)));
+  return sharp(pixels, { raw: { width, height, channels: 3 } }).png().toBuffer();
+}

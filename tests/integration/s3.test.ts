@@ -19,6 +19,7 @@ import {
   s3ConfigFromEnv,
 } from "@/lib/s3";
 import { testEnv } from "../helpers/env";
+import { seededNoisePng } from "../helpers/scan-images";
 
 // Against the object store of the test stack (the local S3-compatible fake), configured by S3_* as the app is.
 beforeAll(async () => {
@@ -85,9 +86,7 @@ describe("lib/s3 against the test stack's object store", () => {
   });
 
   it("stores a processed scan's original and thumbnails and reads them back intact", async () => {
-    const png = await sharp({ create: { width: 400, height: 300, channels: 3, background: "#eee", noise: { type: "gaussian", mean: 128, sigma: 30 } } })
-      .png()
-      .toBuffer();
+    const png = await seededNoisePng(400, 300, { mean: 128, sigma: 30 });
     const scan = await processScan(png, { maxBytes: 10_000_000, maxPixels: 10_000_000 });
     const originalKey = newObjectKey("test/scans");
     const thumbKeys = scan.thumbnails.map(() => newObjectKey("test/thumbs"));

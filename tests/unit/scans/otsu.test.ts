@@ -3,7 +3,7 @@ import sharp from "sharp";
 import { describe, expect, it } from "vitest";
 import { greyHistogram, otsuThreshold, type GreyRaster } from "@/lib/scans";
 import { motifSvg, renderScan } from "@/db/seed/scan-art";
-import { decodeGrey } from "@/tests/helpers/scan-images";
+import { decodeGrey, seededNoisePng } from "@/tests/helpers/scan-images";
 
 /** σ_B²(k) written out from Otsu's definitions with floating point, independently of lib/scans. */
 function betweenClassVariance(histogram: ArrayLike<number>, k: number): number {
@@ -93,7 +93,7 @@ async function crossCheckImages(): Promise<Array<[string, GreyRaster]>> {
   ] as const) {
     out.push([`motif ${seed} (${style}) with grain`, await decodeGrey(await renderScan(motifSvg({ seed, widthMm: 120, heightMm: 90, style }), 100, { grain: 0.6 }))]);
   }
-  const noise = await sharp({ create: { width: 300, height: 200, channels: 3, background: "#777", noise: { type: "gaussian", mean: 90, sigma: 35 } } })
+  const noise = await sharp(await seededNoisePng(300, 200, { mean: 90, sigma: 35 }))
     .composite([{ input: Buffer.from(`<svg width="300" height="200"><circle cx="150" cy="100" r="70" fill="#eee"/></svg>`), blend: "soft-light" }])
     .png()
     .toBuffer();

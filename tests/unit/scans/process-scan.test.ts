@@ -14,6 +14,7 @@ import {
   type ScanStage,
 } from "@/lib/scans";
 import { decodeGrey, decodeRgb } from "@/tests/helpers/scan-images";
+import { seededNoisePng } from "../../helpers/scan-images";
 
 const limits = { maxBytes: 20_000_000, maxPixels: 20_000_000 };
 
@@ -36,10 +37,7 @@ function pngChunkTypes(png: Buffer): string[] {
 const withChunks = (png: Buffer, ...chunks: Buffer[]) => Buffer.concat([png.subarray(0, 33), ...chunks, png.subarray(33)]);
 
 const picture = () =>
-  sharp({ create: { width: 320, height: 200, channels: 3, background: "#e8e0d0", noise: { type: "gaussian", mean: 140, sigma: 50 } } })
-    .png()
-    .toBuffer()
-    .then((b) => sharp(b));
+  seededNoisePng(320, 200, { mean: 140, sigma: 50 }).then((b) => sharp(b));
 
 const contains = (haystack: Buffer, needle: string) => haystack.includes(Buffer.from(needle, "latin1"));
 
