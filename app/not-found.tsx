@@ -1,15 +1,11 @@
 import { getTranslations } from "next-intl/server";
-import Link from "next/link";
+import { MessagePage } from "@/components/shell/message-page";
 
 export default async function NotFound() {
   const t = await getTranslations("common");
   return (
-    <main className="mx-auto max-w-lg px-4 py-24 text-center">
-      <h1 className="text-xl font-semibold">{t("notFoundTitle")}</h1>
-      <p className="mt-2 text-sm text-stone-600">{t("notFoundBody")}</p>
-      <Link href="/" className="mt-6 inline-block text-sm text-ink-700 hover:underline">
-        {t("backHome")}
-      </Link>
+    <main className="px-4">
+      <MessagePage title={t("notFoundTitle")} body={t("notFoundBody")} back={{ href: "/", label: t("backHome") }} />
     </main>
   );
 }

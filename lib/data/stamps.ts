@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, count, desc, eq, gte, ilike, inArray, isNull, lt, lte, ne, or, sql, type SQL } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
-import { checkouts, damageReports, locations, stampEvents, stamps, users, type Location, type Stamp } from "@/db/schema";
+import { checkouts, damageReports, locations, stampEvents, stamps, users, type Checkout, type Location, type Stamp } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
 import { canBeCheckedOut, canChangeCondition, isRepair, needsToBeIn, type Condition } from "@/lib/stamps/condition";
@@ -39,6 +39,23 @@ export interface CheckoutDto {
   note: string | null;
   checkedOutByName: string | null;
   lastRemindedAt: string | null;
+}
+
+/** An open check-out as the API shows it; `today` (ISO date) decides whether it is overdue. */
+function toCheckoutDto(c: Checkout, checkedOutByName: string | null, today: string): CheckoutDto {
+  return {
+    id: c.id,
+    borrowerId: c.borrowerId,
+    borrowerName: c.borrowerName,
+    borrowerEmail: c.borrowerEmail,
+    workstation: c.workstation,
+    outAt: c.outAt.toISOString(),
+    dueOn: c.dueOn,
+    overdue: c.dueOn < today,
+    note: c.note,
+    checkedOutByName,
+    lastRemindedAt: c.lastRemindedAt?.toISOString() ?? null,
+  };
 }
 
 export interface DamageReportDto {
@@ -321,21 +338,7 @@ export async function getStamp(actor: Actor, code: string): Promise<StampDto> {
     version: stamp.version,
     createdAt: stamp.createdAt.toISOString(),
     updatedAt: stamp.updatedAt.toISOString(),
-    checkout: c
-      ? {
-          id: c.id,
-          borrowerId: c.borrowerId,
-          borrowerName: c.borrowerName,
-          borrowerEmail: c.borrowerEmail,
-          workstation: c.workstation,
-          outAt: c.outAt.toISOString(),
-          dueOn: c.dueOn,
-          overdue: c.dueOn < today,
-          note: c.note,
-          checkedOutByName: checkoutRow.byName,
-          lastRemindedAt: c.lastRemindedAt?.toISOString() ?? null,
-        }
-      : null,
+    checkout: c ? toCheckoutDto(c, checkoutRow.byName, today) : null,
     openDamage: damage.map(({ report, byName }) => ({
       id: report.id,
       kind: report.kind,
@@ -685,20 +688,10 @@ export async function listCheckouts(actor: Actor, options: { overdue?: boolean }
     .where(and(isNull(checkouts.returnedAt), options.overdue ? lt(checkouts.dueOn, today) : undefined))
     .orderBy(asc(checkouts.dueOn), asc(stamps.code));
   return rows.map(({ checkout: c, code, name, location, byName }) => ({
-    id: c.id,
+    ...toCheckoutDto(c, byName, today),
     stampCode: code,
     stampName: name,
     location: toLocationRef(location),
-    borrowerId: c.borrowerId,
-    borrowerName: c.borrowerName,
-    borrowerEmail: c.borrowerEmail,
-    workstation: c.workstation,
-    outAt: c.outAt.toISOString(),
-    dueOn: c.dueOn,
-    overdue: c.dueOn < today,
-    note: c.note,
-    checkedOutByName: byName,
-    lastRemindedAt: c.lastRemindedAt?.toISOString() ?? null,
   }));
 }
 

@@ -19,6 +19,7 @@ import { useActionState, useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { cn } from "@/components/ui/cn";
 import { Notice } from "@/components/ui/notice";
+import { SortableTableHead } from "@/components/ui/sortable-table-head";
 import { initialFormState } from "@/lib/actions/form-state";
 import type { UserDto } from "@/lib/data/users";
 import { roles } from "@/lib/permissions";
@@ -143,24 +144,7 @@ export function UsersTable({ users, selfId }: { users: UserDto[]; selfId: string
       {state.message ? <Notice tone={state.status === "success" ? "success" : "error"}>{state.message}</Notice> : null}
       <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
         <table className="min-w-full divide-y divide-stone-200 text-sm">
-          <thead className="bg-stone-50">
-            {table.getHeaderGroups().map((group) => (
-              <tr key={group.id}>
-                {group.headers.map((header) => (
-                  <th key={header.id} scope="col" className="px-4 py-2.5 text-left font-semibold text-stone-700">
-                    {header.column.getCanSort() ? (
-                      <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1">
-                        {flexRender(header.column.columnDef.header, header.getContext())}
-                        <span aria-hidden="true">{{ asc: "▲", desc: "▼" }[header.column.getIsSorted() as string] ?? ""}</span>
-                      </button>
-                    ) : (
-                      flexRender(header.column.columnDef.header, header.getContext())
-                    )}
-                  </th>
-                ))}
-              </tr>
-            ))}
-          </thead>
+          <SortableTableHead headerGroups={table.getHeaderGroups()} />
           <tbody className="divide-y divide-stone-100">
             {rows.length === 0 ? (
               <tr>

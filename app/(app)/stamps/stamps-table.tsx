@@ -22,6 +22,7 @@ import { sizeText } from "@/components/stamps/measure";
 import { Button } from "@/components/ui/button";
 import { cn } from "@/components/ui/cn";
 import { Notice } from "@/components/ui/notice";
+import { SortableTableHead } from "@/components/ui/sortable-table-head";
 import type { LocationDto } from "@/lib/data/locations";
 import type { StampListItem } from "@/lib/data/stamps";
 import type { UnitSystem } from "@/lib/stamps/format";
@@ -438,34 +439,7 @@ export function StampsTable({
 
       <div className={cn("overflow-x-auto rounded-lg border border-stone-200 bg-white transition-opacity", isValidating && !isLoading && "opacity-70")}>
         <table className="min-w-full divide-y divide-stone-200 text-sm" aria-label={t("stamps.table.label")} aria-busy={isValidating}>
-          <thead className="bg-stone-50">
-            {table.getHeaderGroups().map((group) => (
-              <tr key={group.id}>
-                {group.headers.map((header) => {
-                  const sorted = header.column.getIsSorted();
-                  return (
-                    <th
-                      key={header.id}
-                      scope="col"
-                      aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : undefined}
-                      className="whitespace-nowrap px-3 py-2.5 text-left font-semibold text-stone-700"
-                    >
-                      {header.column.getCanSort() ? (
-                        <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 hover:text-ink-700">
-                          {flexRender(header.column.columnDef.header, header.getContext())}
-                          <span aria-hidden="true" className="text-xs">
-                            {sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}
-                          </span>
-                        </button>
-                      ) : (
-                        flexRender(header.column.columnDef.header, header.getContext())
-                      )}
-                    </th>
-                  );
-                })}
-              </tr>
-            ))}
-          </thead>
+          <SortableTableHead headerGroups={table.getHeaderGroups()} cellClassName="px-3 py-2.5" />
           <tbody className="divide-y divide-stone-100">
             {isLoading ? (
               Array.from({ length: 6 }, (_, i) => (

@@ -1,15 +1,7 @@
 import { getTranslations } from "next-intl/server";
-import Link from "next/link";
+import { MessagePage } from "@/components/shell/message-page";
 
 export default async function StampNotFound() {
-  const t = await getTranslations();
-  return (
-    <div className="mx-auto max-w-lg py-16 text-center">
-      <h1 className="text-xl font-semibold">{t("stamps.record.notFoundTitle")}</h1>
-      <p className="mt-2 text-sm text-stone-600">{t("stamps.record.notFoundBody")}</p>
-      <Link href="/stamps" className="mt-6 inline-block text-sm text-ink-700 hover:underline">
-        {t("stamps.record.backToShelf")}
-      </Link>
-    </div>
-  );
+  const t = await getTranslations("stamps.record");
+  return <MessagePage title={t("notFoundTitle")} body={t("notFoundBody")} back={{ href: "/stamps", label: t("backToShelf") }} />;
 }
