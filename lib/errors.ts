@@ -1,6 +1,10 @@
+import type { z } from "zod";
+import type { ScanRejectedCode } from "@/lib/scans/errors";
+
 /**
- * One error type for the app. `code` names a message in the catalogue (`errors.<code>`) and
- * decides the HTTP status; `fields` carries per-field message keys for forms and the API.
+ * The one status table (two groups): every error code the app answers with, and its HTTP status. Domain errors
+ * (lib/layout, lib/scans, …) carry a code, params and a field only; the status is decided here and
+ * the text in the catalogue, when the error is answered (lib/error-body.ts).
  */
 export const errorStatus = {
   badRequest: 400,
@@ -9,6 +13,7 @@ export const errorStatus = {
   forbidden: 403,
   crossSite: 403,
   notFound: 404,
+  methodNotAllowed: 405,
   conflict: 409,
   emailTaken: 409,
   payloadTooLarge: 413,
@@ -29,25 +34,149 @@ export const errorStatus = {
   stockTakeOpen: 409,
   stockTakeClosed: 409,
   csvMediaType: 415,
+  scanDuplicate: 409,
+  scanUploadMissing: 409,
   internal: 500,
 } as const;
 
-export type ErrorCode = keyof typeof errorStatus;
+/** Why lib/scans refused a file (codes in lib/scans/errors.ts); messages are `scans.rejected.<code>`. */
+export const scanRejectedStatus = {
+  badFileName: 400,
+  empty: 400,
+  tooLarge: 413,
+  svgRefused: 415,
+  markupRefused: 415,
+  unsupportedType: 415,
+  notAnImage: 415,
+  truncated: 422,
+  trailingData: 422,
+  corrupt: 422,
+  tooManyPixels: 413,
+  tooSmall: 422,
+  busy: 503,
+} as const satisfies Record<ScanRejectedCode, number>;
 
+const statusTable = { ...errorStatus, ...scanRejectedStatus } as const;
+
+/** Codes of AppError; each has its message at `errors.<code>`. */
+export type ErrorCode = keyof typeof errorStatus;
+/** Every code an error body can carry. */
+export type AnswerCode = keyof typeof statusTable;
+
+export const statusOf = (code: AnswerCode): number => statusTable[code];
+
+export type MessageValues = Record<string, string | number>;
+
+/** A message before translation: a catalogue key and the values of its placeholders. */
+export interface MessageRef {
+  key: string;
+  values: MessageValues;
+}
+
+/** A field message before translation: a bare key (values from the error's params) or a key with its own values. */
+export type FieldMessage = string | MessageRef;
+
+/** Translated messages per field path ("cloth.widthMm"; "_form" for the whole input). */
 export type FieldErrors = Record<string, string[]>;
 
-/** A field message before translation: a catalogue key, with values for its placeholders. */
-export type FieldMessage = string | { key: string; values: Record<string, string | number> };
-
+/**
+ * An error the app raises on purpose. `code` picks the status (table above) and the message
+ * (`errors.<code>`); `fields` names per-field messages; `details` adds members to the error body
+ * (e.g. the scan a duplicate repeats).
+ */
 export class AppError extends Error {
-  readonly status: number;
   constructor(
     readonly code: ErrorCode,
-    readonly params: Record<string, string | number> = {},
+    readonly params: MessageValues = {},
     readonly fields?: Record<string, FieldMessage[]>,
+    readonly details?: Record<string, unknown>,
   ) {
     super(code);
     this.name = "AppError";
-    this.status = errorStatus[code];
+  }
+
+  get status(): number {
+    return errorStatus[this.code];
   }
 }
+
+/** A validation failure with zod's issues (400, or 422 for values that are valid alone but not together). */
+export class ValidationFailed extends AppError {
+  constructor(
+    readonly issues: readonly z.core.$ZodIssue[],
+    status: 400 | 422 = 400,
+  ) {
+    super(status === 422 ? "unprocessable" : "validation");
+  }
+}
+
+type RawIssue = z.core.$ZodRawIssue | z.core.$ZodIssue;
+
+/**
+ * The one map from a zod issue to a catalogue key of the `validation` namespace. Schemas use it as
+ * their error map (`{ error: issueKey }`) or name a key themselves (`"validation.stampSide"`).
+ */
+export function issueKey(issue: RawIssue): string {
+  switch (issue.code) {
+    case "invalid_type":
+      if (issue.input === undefined) return "validation.required";
+      return issue.expected === "int" ? "validation.notAnInteger" : "validation.invalidType";
+    case "too_small":
+      if (issue.origin === "string") return Number(issue.minimum) <= 1 ? "validation.required" : "validation.tooShort";
+      return issue.origin === "array" ? "validation.tooFew" : "validation.tooSmall";
+    case "too_big":
+      return issue.origin === "string" ? "validation.tooLong" : issue.origin === "array" ? "validation.tooMany" : "validation.tooBig";
+    case "invalid_format":
+      return issue.format === "email" ? "validation.email" : "validation.invalidFormat";
+    case "invalid_value":
+      return "validation.invalidOption";
+    case "unrecognized_keys":
+      return "validation.unknownFields";
+    case "not_multiple_of":
+      return "validation.notMultipleOf";
+    default:
+      return "validation.invalid";
+  }
+}
+
+/** The values a message for this issue interpolates ({min}, {max}, {options}, …, and a custom check's params). */
+export function issueValues(issue: RawIssue): MessageValues {
+  const values: MessageValues = {};
+  switch (issue.code) {
+    case "too_small":
+      values.min = Number(issue.minimum);
+      break;
+    case "too_big":
+      values.max = Number(issue.maximum);
+      break;
+    case "invalid_type":
+      values.expected = String(issue.expected);
+      break;
+    case "invalid_value":
+      values.options = issue.values.map(String).join(", ");
+      break;
+    case "unrecognized_keys":
+      values.keys = issue.keys.join(", ");
+      break;
+    case "not_multiple_of":
+      values.step = Number(issue.divisor);
+      break;
+    case "custom":
+      for (const [key, v] of Object.entries(issue.params ?? {})) {
+        if (typeof v === "number" || typeof v === "string") values[key] = v;
+        else if (typeof v === "boolean") values[key] = String(v);
+      }
+      break;
+  }
+  return values;
+}
+
+/** Catalogue key and values for one zod issue: the schema's own key when it names one, else the key for its code. */
+export function issueMessage(issue: RawIssue): MessageRef {
+  const message = "message" in issue ? issue.message : undefined;
+  const key = message?.startsWith("validation.") || message?.startsWith("layout.") ? message : issueKey(issue);
+  return { key, values: issueValues(issue) };
+}
+
+/** The dotted field path of an issue ("cloth.widthMm"); "_form" for the input as a whole. */
+export const issuePath = (issue: { path: readonly PropertyKey[] }): string => (issue.path.length ? issue.path.map(String).join(".") : "_form");

@@ -5,7 +5,7 @@ import { useRouter } from "next/navigation";
 import { useFormatter, useTranslations } from "next-intl";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
-import type { ScanDto } from "@/lib/data/scans";
+import type { ScanDto } from "@/lib/contracts/scans";
 import { ApiError, apiFetch } from "@/lib/swr/fetcher";
 import { scansKey, useCoveragePreview } from "@/lib/swr/use-scans";
 import { waxPolarityValues } from "@/lib/validation/scans";

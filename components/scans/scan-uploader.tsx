@@ -4,7 +4,7 @@ import { useRef, useState, useSyncExternalStore } from "react";
 import { useTranslations } from "next-intl";
 import { Button } from "@/components/ui/button";
 import { cn } from "@/components/ui/cn";
-import type { ScanDto, ScanUpload } from "@/lib/data/scans";
+import type { ScanDto, ScanUpload } from "@/lib/contracts/scans";
 import { ApiError, apiFetch } from "@/lib/swr/fetcher";
 import { scansKey } from "@/lib/swr/use-scans";
 import { DPI_MAX, DPI_MIN, scanKinds, type ScanKindValue } from "@/lib/validation/scans";

@@ -7,7 +7,7 @@ import { useFormatter, useTranslations } from "next-intl";
 import { Button } from "@/components/ui/button";
 import { cn } from "@/components/ui/cn";
 import { Notice } from "@/components/ui/notice";
-import type { ScanDto } from "@/lib/data/scans";
+import { scanUrls, type ScanDto } from "@/lib/contracts/scans";
 import { ApiError, apiFetch } from "@/lib/swr/fetcher";
 import { useScans, useSimilarStamps, type ScansAnswer } from "@/lib/swr/use-scans";
 import { CoverageReview } from "./coverage-review";
@@ -126,7 +126,7 @@ function ScanCard({ scan, canWrite, unitSystem, onView, onReview, onDeleted }: {
     setDeleting(true);
     setDeleteError(null);
     try {
-      await apiFetch(`/api/v1/stamps/${encodeURIComponent(scan.stampCode)}/scans/${scan.id}`, { method: "DELETE" });
+      await apiFetch(scanUrls.one(scan.stampCode, scan.id), { method: "DELETE" });
       onDeleted();
       router.refresh();
     } catch (e) {

@@ -1,6 +1,6 @@
 import { getTranslations } from "next-intl/server";
 import Link from "next/link";
-import { signOutAction } from "@/app/(app)/actions";
+import { signOutAction } from "@/lib/actions/sign-out";
 import { can } from "@/lib/permissions";
 import type { Actor } from "@/lib/session";
 import { Logo } from "./logo";

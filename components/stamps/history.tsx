@@ -1,6 +1,6 @@
 import { getFormatter, getTranslations } from "next-intl/server";
 import { cn } from "@/components/ui/cn";
-import type { StampEventDto } from "@/lib/data/stamps";
+import type { StampEventDto } from "@/lib/contracts/stamps";
 import type { UnitSystem } from "@/lib/stamps/format";
 import { lengthText, massText } from "./measure";
 

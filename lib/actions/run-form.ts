@@ -2,11 +2,9 @@ import "server-only";
 import { getLocale } from "next-intl/server";
 import { unstable_rethrow } from "next/navigation";
 import type { z } from "zod";
-import { translateFields } from "@/lib/api/route";
-import { AppError } from "@/lib/errors";
+import { errorAnswer, issueFields } from "@/lib/error-body";
 import { pickLocale } from "@/lib/i18n/config";
 import { translator } from "@/lib/i18n/translator";
-import { translateIssues } from "@/lib/validation/issues";
 import type { FormState } from "./form-state";
 
 const secretFields = new Set(["password", "confirm", "token", "currentPassword"]);
@@ -37,7 +35,7 @@ export async function runForm<S extends z.ZodType>(
     return {
       status: "error",
       message: t("common.formHasErrors"),
-      fieldErrors: translateIssues(parsed.error.issues, t, t.has),
+      fieldErrors: issueFields(parsed.error.issues, t),
       values,
     };
   }
@@ -45,11 +43,7 @@ export async function runForm<S extends z.ZodType>(
     return (await work(parsed.data)) ?? { status: "success" };
   } catch (error) {
     unstable_rethrow(error);
-    if (error instanceof AppError) {
-      const fieldErrors = error.fields ? translateFields(error.fields, error.params, t) : undefined;
-      return { status: "error", message: t(`errors.${error.code}`, error.params), fieldErrors, values };
-    }
-    console.error(error);
-    return { status: "error", message: t("errors.internal"), values };
+    const { error: answer } = errorAnswer(error, t).body;
+    return { status: "error", message: answer.message, fieldErrors: answer.fields, values };
   }
 }

@@ -1,86 +1,108 @@
 import "server-only";
 import { NextResponse } from "next/server";
-import { ZodError, type z } from "zod";
-import { AppError, type FieldErrors, type FieldMessage } from "@/lib/errors";
+import type { z } from "zod";
+import { errorAnswer } from "@/lib/error-body";
+import { AppError, ValidationFailed } from "@/lib/errors";
 import { pickLocale } from "@/lib/i18n/config";
 import { translator, type Translator } from "@/lib/i18n/translator";
 import { type Permission } from "@/lib/permissions";
 import { assertCan, currentActor, type Actor } from "@/lib/session";
-import { translateIssues } from "@/lib/validation/issues";
+import { queryObject } from "@/lib/validation/common";
 import { isCrossSite } from "./cross-site";
 
-interface Context<P> {
+/** What a route declares: the reference (lib/api/openapi.ts) and the parsing below are both built from it. */
+export interface Endpoint {
+  /** Names the operation; its summary is `apiDocs.operations.<operation>` in the catalogue. */
+  operation: string;
+  /** The permission the route needs; every route needs a signed-in actor. */
+  permission: Permission;
+  /** Path parameters ({code}, {id}). */
+  params?: z.ZodType;
+  /** The query string. */
+  query?: z.ZodType;
+  /** A JSON body. */
+  body?: z.ZodType;
+  /** An empty request body counts as `{}` (e.g. a return with nothing to add). */
+  bodyOptional?: boolean;
+  /** A body that is not JSON, read by the handler itself (documented only). */
+  accepts?: "text/csv";
+  /** The success answer, for the reference: 200 JSON unless said. */
+  answers?: { status?: 200 | 201 | 204; type?: "application/json" | "text/csv" | "image/webp" | "application/octet-stream" };
+}
+
+type Parsed<T> = T extends z.ZodType ? z.output<T> : undefined;
+
+interface Context<E extends Endpoint> {
   request: Request;
   actor: Actor;
-  params: P;
+  params: Parsed<E["params"]>;
+  query: Parsed<E["query"]>;
+  body: Parsed<E["body"]>;
   t: Translator;
 }
 
-interface Options {
-  /** The permission the route needs; every route needs a signed-in actor. */
-  permission: Permission;
-}
+export type RouteHandler = ((request: Request, context: { params: Promise<Record<string, string | string[]>> }) => Promise<Response>) & {
+  endpoint?: Endpoint;
+};
 
-type Handler<P> = (ctx: Context<P>) => Promise<Response | unknown>;
+export const httpMethods = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
+export type HttpMethod = (typeof httpMethods)[number];
 
-/** Error bodies: `{ error: { code, message, fields? } }` with the status that fits. */
-export function errorResponse(error: unknown, t: Translator): Response {
-  if (error instanceof ZodError) return errorResponse(new ValidationFailed(error.issues), t);
-  if (error instanceof ValidationFailed) {
-    const fields = translateIssues(error.issues, t, t.has);
-    return NextResponse.json({ error: { code: "validation", message: t("errors.validation"), fields } }, { status: error.status });
-  }
-  if (error instanceof AppError) {
-    const fields: FieldErrors | undefined = error.fields ? translateFields(error.fields, error.params, t) : undefined;
-    return NextResponse.json(
-      { error: { code: error.code, message: t(`errors.${error.code}`, error.params), ...(fields ? { fields } : {}) } },
-      { status: error.status },
-    );
-  }
-  console.error(error);
-  return NextResponse.json({ error: { code: "internal", message: t("errors.internal") } }, { status: 500 });
-}
-
-export function translateFields(fields: Record<string, FieldMessage[]>, params: Record<string, string | number>, t: Translator): FieldErrors {
-  return Object.fromEntries(
-    Object.entries(fields).map(([field, messages]) => [field, messages.map((m) => (typeof m === "string" ? t(m, params) : t(m.key, m.values)))]),
-  );
-}
-
-/** A validation failure with zod's issues; translated where it is answered. */
-export class ValidationFailed extends AppError {
-  constructor(
-    readonly issues: readonly z.core.$ZodIssue[],
-    status: 400 | 422 = 400,
-  ) {
-    super(status === 422 ? "unprocessable" : "validation");
-  }
-}
-
+/** The language of an answer: the user's setting, else the caller's Accept-Language, else English. */
 function localeFrom(request: Request, actor: Actor | null) {
   return pickLocale(actor?.locale ?? request.headers.get("accept-language")?.split(",")[0]?.split("-")[0]);
 }
 
+/** Answers any error in the JSON error shape (lib/error-body.ts). */
+export function errorResponse(error: unknown, t: Translator): Response {
+  const { status, body } = errorAnswer(error, t);
+  return NextResponse.json(body, { status });
+}
+
 /**
  * Wraps a `/api/v1` route handler: refuses cross-site writes, resolves the actor (session or
- * Bearer token), checks the permission table, and turns every error into the JSON error shape.
+ * Bearer token), checks the permission table, parses params, query and body with the endpoint's
+ * schemas (each once), and turns every error into the JSON error shape.
  */
-export function apiRoute<P = Record<string, never>>(options: Options, handler: Handler<P>) {
-  return async (request: Request, context: { params: Promise<P> }): Promise<Response> => {
+export function apiRoute<E extends Endpoint>(endpoint: E, handler: (ctx: Context<E>) => Promise<Response | unknown>): RouteHandler {
+  const route: RouteHandler = async (request, context) => {
     let t = translator(localeFrom(request, null));
     try {
       if (isCrossSite(request)) throw new AppError("crossSite");
       const actor = await currentActor();
       if (!actor) throw new AppError("unauthenticated");
       t = translator(localeFrom(request, actor));
-      assertCan(actor, options.permission);
-      const result = await handler({ request, actor, params: await context.params, t });
+      assertCan(actor, endpoint.permission);
+      const params = endpoint.params ? parseOrThrow(endpoint.params, await context.params) : undefined;
+      const query = endpoint.query ? parseOrThrow(endpoint.query, queryObject(new URL(request.url).searchParams)) : undefined;
+      const body = endpoint.body
+        ? endpoint.bodyOptional && request.headers.get("content-length") === "0"
+          ? parseOrThrow(endpoint.body, {})
+          : await readJson(request, endpoint.body)
+        : undefined;
+      const result = await handler({ request, actor, params, query, body, t } as Context<E>);
       if (result instanceof Response) return result;
       return NextResponse.json(result);
     } catch (error) {
       return errorResponse(error, t);
     }
   };
+  route.endpoint = endpoint;
+  return route;
+}
+
+/**
+ * The exports of a route file: the methods it has, and a JSON 405 (with `Allow`) for the rest, so
+ * `export const { GET, POST, PUT, PATCH, DELETE } = methods({ GET: apiRoute(…) })`.
+ */
+export function methods(handlers: Partial<Record<HttpMethod, RouteHandler>>): Record<HttpMethod, RouteHandler> {
+  const allow = [...httpMethods.filter((m) => handlers[m]), ...(handlers.GET ? ["HEAD"] : []), "OPTIONS"].sort().join(", ");
+  const notAllowed: RouteHandler = async (request) => {
+    const response = errorResponse(new AppError("methodNotAllowed", { method: request.method }), translator(localeFrom(request, null)));
+    response.headers.set("allow", allow);
+    return response;
+  };
+  return Object.fromEntries(httpMethods.map((m) => [m, handlers[m] ?? notAllowed])) as Record<HttpMethod, RouteHandler>;
 }
 
 /** Reads and validates a JSON body: 415 for another content type, 400 for broken JSON or bad fields. */

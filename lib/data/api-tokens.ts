@@ -5,14 +5,7 @@ import { apiTokens } from "@/db/schema";
 import { hashSecret, newSecret } from "@/lib/auth/secrets";
 import { AppError } from "@/lib/errors";
 import { assertCan, type Actor } from "@/lib/authz";
-
-export interface ApiTokenDto {
-  id: string;
-  name: string;
-  prefix: string;
-  createdAt: string;
-  lastUsedAt: string | null;
-}
+import type { ApiTokenDto } from "@/lib/contracts/people";
 
 export async function listApiTokens(actor: Actor): Promise<ApiTokenDto[]> {
   assertCan(actor, "account:self");

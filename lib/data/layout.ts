@@ -1,14 +1,11 @@
 import "server-only";
 import { eq } from "drizzle-orm";
-import type { z } from "zod";
 import { db } from "@/db";
 import { stamps } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
-import { computeLayout, LayoutInputError, type LayoutResult } from "@/lib/layout";
-import type { layoutRequestSchema, StampSize } from "@/lib/validation/layout";
-
-export type LayoutRequest = z.output<typeof layoutRequestSchema>;
+import { layoutOf, withStamp, type LayoutResult, type LayoutSpec, type StampSize } from "@/lib/layout";
+import type { LayoutRequest } from "@/lib/validation/layout";
 
 /**
  * The footprint of a library stamp for `{ "stamp": { "code" } }`: its outline when it has one,
@@ -29,24 +26,9 @@ async function stampGeometry(code: string): Promise<StampSize> {
   };
 }
 
-/** Turns the engine's refusal into a 422 naming each field, with the numbers for its message. */
-function toAppError(error: LayoutInputError): AppError {
-  const fields: Record<string, { key: string; values: Record<string, string | number> }[]> = {};
-  for (const issue of error.issues) {
-    const values = Object.fromEntries(Object.entries(issue.params).map(([k, v]) => [k, typeof v === "boolean" ? String(v) : v]));
-    (fields[issue.field] ??= []).push({ key: issue.messageKey, values });
-  }
-  return new AppError("unprocessable", {}, fields);
-}
-
-/** Computes a layout for anyone who may read (nothing is saved). */
+/** Computes a layout for anyone who may read (nothing is saved); the request was parsed once, by the route. */
 export async function computeLayoutFor(actor: Actor, request: LayoutRequest): Promise<LayoutResult> {
   assertCan(actor, "data:read");
-  const stamp = "code" in request.stamp ? await stampGeometry(request.stamp.code) : request.stamp;
-  try {
-    return computeLayout({ ...request, stamp });
-  } catch (error) {
-    if (error instanceof LayoutInputError) throw toAppError(error);
-    throw error;
-  }
+  const spec: LayoutSpec = "code" in request.stamp ? withStamp(request, await stampGeometry(request.stamp.code)) : (request as LayoutSpec);
+  return layoutOf(spec);
 }

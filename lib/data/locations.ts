@@ -6,14 +6,7 @@ import { assertCan, type Actor } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
 import type { LocationInput } from "@/lib/validation/stamps";
 import { isForeignKeyViolation, isUniqueViolation } from "./stamp-events";
-
-export interface LocationDto {
-  id: string;
-  site: string;
-  code: string;
-  description: string | null;
-  stampCount: number;
-}
+import type { LocationDto } from "@/lib/contracts/stamps";
 
 const toDto = (l: Location, stampCount = 0): LocationDto => ({ id: l.id, site: l.site, code: l.code, description: l.description, stampCount });
 

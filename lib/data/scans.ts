@@ -32,6 +32,7 @@ import { deleteObjects, getObjectBytes, headObject, newObjectKey, objectStore, O
 import { polarityForKind, type CompleteScanInput, type PresignScanInput, type SaveCoverageInput } from "@/lib/validation/scans";
 import { isUniqueViolation, recordEvent } from "./stamp-events";
 import { scanKeys, scanRow } from "./scan-rows";
+import { scanUrls, type CoveragePreviewDto, type ScanDto, type ScanUpload, type SimilarStampDto } from "@/lib/contracts/scans";
 
 // --- limits and errors ---------------------------------------------------------------------
 
@@ -41,68 +42,8 @@ export function scanLimits(): Required<ScanLimits> {
   return { ...defaultScanLimits, maxBytes: e.SCAN_MAX_BYTES ?? defaultScanLimits.maxBytes, maxPixels: e.SCAN_MAX_PIXELS ?? defaultScanLimits.maxPixels };
 }
 
-/**
- * A scan request that cannot go ahead for a reason outside the file itself; the route answers it with
- * `scans.problems.<code>` and the status. `existing` names the scan a duplicate repeats.
- */
-export class ScanProblem extends Error {
-  constructor(
-    readonly code: "duplicate" | "uploadMissing",
-    readonly status: 409,
-    readonly params: Record<string, string | number> = {},
-    readonly existing?: { id: string; fileName: string; createdAt: string },
-  ) {
-    super(`scan problem: ${code}`);
-    this.name = "ScanProblem";
-  }
-}
-
 // --- DTOs ------------------------------------------------------------------------------------
 
-export interface ScanDto {
-  id: string;
-  stampCode: string;
-  kind: "face" | "print";
-  fileName: string;
-  contentType: string;
-  widthPx: number;
-  heightPx: number;
-  dpi: number | null;
-  dpiSource: "file" | "keeper" | null;
-  sizeBytes: number;
-  sha256: string;
-  polarity: WaxPolarity;
-  threshold: number;
-  otsuThreshold: number;
-  coverageRatio: number;
-  /** Physical size from pixels and DPI, mm; null without a DPI. */
-  sizeMm: { widthMm: number; heightMm: number } | null;
-  /** The measured size against the stamp's record (warn above 3 %); null without a DPI. */
-  sizeCheck: Pick<SizeComparison, "widthDeviationPct" | "heightDeviationPct" | "maxDeviationPct" | "warn" | "turned" | "tolerancePct"> | null;
-  uploadedByName: string;
-  createdAt: string;
-  urls: { thumb: string; large: string; download: string; overlay: string };
-}
-
-export interface ScanUpload {
-  key: string;
-  url: string;
-  method: "PUT";
-  headers: Record<string, string>;
-  expiresAt: string;
-}
-
-export interface SimilarStampDto {
-  code: string;
-  name: string;
-  scanId: string;
-  distance: number;
-  /** "mirrored": this stamp's motif mirrored looks like the other one (a back-face twin). */
-  orientation: "same" | "mirrored";
-  urls: { thumb: string };
-}
-
-const base = (code: string) => `/api/v1/stamps/${encodeURIComponent(code)}/scans`;
 
 function sizeCheckOf(row: Pick<StampScan, "widthPx" | "heightPx" | "dpi">, stamp: Pick<Stamp, "widthMm" | "heightMm">) {
   if (!row.dpi) return { sizeMm: null, sizeCheck: null };
@@ -112,7 +53,6 @@ function sizeCheckOf(row: Pick<StampScan, "widthPx" | "heightPx" | "dpi">, stamp
 }
 
 function toDto(row: StampScan, stamp: Pick<Stamp, "code" | "widthMm" | "heightMm">): ScanDto {
-  const url = `${base(stamp.code)}/${row.id}`;
   return {
     id: row.id,
     stampCode: stamp.code,
@@ -132,7 +72,12 @@ function toDto(row: StampScan, stamp: Pick<Stamp, "code" | "widthMm" | "heightMm
     ...sizeCheckOf(row, stamp),
     uploadedByName: row.uploadedByName,
     createdAt: row.createdAt.toISOString(),
-    urls: { thumb: `${url}/image?size=thumb`, large: `${url}/image?size=large`, download: `${url}/download`, overlay: `${url}/overlay` },
+    urls: {
+      thumb: scanUrls.image(stamp.code, row.id, "thumb"),
+      large: scanUrls.image(stamp.code, row.id, "large"),
+      download: scanUrls.download(stamp.code, row.id),
+      overlay: scanUrls.overlay(stamp.code, row.id),
+    },
   };
 }
 
@@ -271,12 +216,12 @@ export async function completeScanUpload(actor: Actor, code: string, input: Comp
   assertCan(actor, "stamps:write");
   const stamp = await findStamp(code);
   const limits = scanLimits();
-  if (!input.uploadKey.startsWith(`${uploadPrefix(stamp.id, actor.id)}/`)) throw new ScanProblem("uploadMissing", 409);
+  if (!input.uploadKey.startsWith(`${uploadPrefix(stamp.id, actor.id)}/`)) throw new AppError("scanUploadMissing");
   const uploadKey = input.uploadKey;
   let storedKeys: string[] = [];
   try {
     const head = await headObject(uploadKey);
-    if (!head) throw new ScanProblem("uploadMissing", 409);
+    if (!head) throw new AppError("scanUploadMissing");
     // The store does not enforce the signed length everywhere (the local fake does not): check what arrived.
     if (head.sizeBytes > limits.maxBytes) throw new ScanRejected("tooLarge", { sizeBytes: head.sizeBytes, maxBytes: limits.maxBytes });
     let bytes: Buffer | null;
@@ -286,7 +231,7 @@ export async function completeScanUpload(actor: Actor, code: string, input: Comp
       if (error instanceof ObjectTooLarge) throw new ScanRejected("tooLarge", { maxBytes: limits.maxBytes });
       throw error;
     }
-    if (!bytes) throw new ScanProblem("uploadMissing", 409);
+    if (!bytes) throw new AppError("scanUploadMissing");
     const data = bytes;
     const polarity = polarityForKind[input.kind];
     const processed = await scanLimiter.run(() =>
@@ -351,7 +296,7 @@ export async function completeScanUpload(actor: Actor, code: string, input: Comp
 }
 
 function duplicateOf(existing: { id: string; fileName: string; createdAt: Date }) {
-  return new ScanProblem("duplicate", 409, { fileName: existing.fileName }, { id: existing.id, fileName: existing.fileName, createdAt: existing.createdAt.toISOString() });
+  return new AppError("scanDuplicate", { fileName: existing.fileName }, undefined, { existing: { id: existing.id, fileName: existing.fileName, createdAt: existing.createdAt.toISOString() } });
 }
 
 export async function deleteScan(actor: Actor, code: string, id: string): Promise<void> {
@@ -376,15 +321,6 @@ async function reviewContext(code: string, id: string) {
   const mmPerPx = analysisMmPerPx(scan, raster);
   const turned = scan.dpi ? compareWithRecord(physicalSizeMm(scan.widthPx, scan.heightPx, scan.dpi), stamp).turned : false;
   return { stamp, scan, raster, footprint: footprintRect(raster, mmPerPx, stamp, turned) };
-}
-
-export interface CoveragePreviewDto {
-  polarity: WaxPolarity;
-  threshold: number;
-  otsuThreshold: number;
-  ratio: number;
-  /** The footprint counted, as fractions of the scan (for drawing it); null = the whole scan. */
-  footprint: { left: number; top: number; width: number; height: number } | null;
 }
 
 /** Coverage for a polarity and threshold (Otsu's when none), without saving anything. */
@@ -483,7 +419,7 @@ export async function similarStamps(actor: Actor, code: string, limit = 8): Prom
   const byId = new Map(rows.map((r) => [r.id, r]));
   return ranked.flatMap(([stampId, m]) => {
     const s = byId.get(stampId);
-    return s ? [{ code: s.code, name: s.name, scanId: m.scanId, distance: m.distance, orientation: m.orientation, urls: { thumb: `${base(s.code)}/${m.scanId}/image?size=thumb` } }] : [];
+    return s ? [{ code: s.code, name: s.name, scanId: m.scanId, distance: m.distance, orientation: m.orientation, urls: { thumb: scanUrls.image(s.code, m.scanId, "thumb") } }] : [];
   });
 }
 

@@ -3,12 +3,11 @@ import { inArray } from "drizzle-orm";
 import { db } from "@/db";
 import { locations, stamps } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz";
-import { AppError } from "@/lib/errors";
-import type { Translator } from "@/lib/i18n/translator";
 import { columnOfField, parseStampCsv, stampsToCsv, type CsvRowProblem } from "@/lib/stamps/csv";
-import { issueMessage } from "@/lib/validation/issues";
+import { AppError, issueMessage, type MessageRef } from "@/lib/errors";
 import { createStampSchema, type CreateStampInput, type StampListQuery, type UpdateStampInput } from "@/lib/validation/stamps";
 import { createStamp, listAllStamps, listCheckouts, updateStamp } from "./stamps";
+import type { ImportResult } from "@/lib/contracts/stamps";
 
 export const importLimits = { maxRows: 20_000, maxBytes: 5 * 1024 * 1024 } as const;
 
@@ -46,15 +45,18 @@ export async function exportStampsCsv(actor: Actor, query: Partial<StampListQuer
   );
 }
 
+/** One problem of a file, before translation: the error body (lib/error-body.ts) translates it. */
 export interface ImportProblem {
   line: number;
   column: string | null;
-  message: string;
+  message: MessageRef;
 }
 
-export type ImportResult =
-  | { ok: true; dryRun: boolean; rows: number; created: number; updated: number }
-  | { ok: false; problems: ImportProblem[] };
+/** The file's problems as one 422: nothing was stored; `error.rows` lists them by line. */
+function importInvalid(problems: ImportProblem[]): AppError {
+  const rows = [...problems].sort((a, b) => a.line - b.line);
+  return new AppError("importInvalid", { count: new Set(rows.map((p) => p.line)).size }, undefined, { rows });
+}
 
 interface ReadyRow {
   line: number;
@@ -63,23 +65,19 @@ interface ReadyRow {
   present: Set<string>;
 }
 
-/** Signals that the transaction must roll back because rows failed while being applied. */
-class RowsFailed extends Error {}
-
 /**
  * Imports stamps from CSV: a row whose code exists updates that stamp (only the columns the file
  * has), any other row adds a stamp. Every row is checked first; one bad row and nothing is stored.
  * All changes run in one transaction, so a failure while storing also leaves everything as it was.
  */
-export async function importStampsCsv(actor: Actor, text: string, options: { dryRun: boolean; t: Translator }): Promise<ImportResult> {
+export async function importStampsCsv(actor: Actor, text: string, options: { dryRun: boolean }): Promise<ImportResult> {
   assertCan(actor, "stamps:write");
-  const { t } = options;
   const problems: ImportProblem[] = [];
-  const report = (p: CsvRowProblem) => problems.push({ line: p.line, column: p.column, message: t(p.key, p.values) });
+  const report = (p: CsvRowProblem) => problems.push({ line: p.line, column: p.column, message: { key: p.key, values: p.values ?? {} } });
 
   const parsed = parseStampCsv(text, importLimits.maxRows);
   parsed.problems.forEach(report);
-  if (problems.length) return { ok: false, problems };
+  if (problems.length) throw importInvalid(problems);
 
   const locationRows = await db.select().from(locations);
   const locationKey = (site: string, code: string) => `${site.trim().toLowerCase()}\u0000${code.trim().toUpperCase()}`;
@@ -111,9 +109,8 @@ export async function importStampsCsv(actor: Actor, text: string, options: { dry
     const result = createStampSchema.safeParse(raw, { reportInput: true });
     if (!result.success) {
       for (const issue of result.error.issues) {
-        const { key, values } = issueMessage(issue);
         const field = issue.path.length ? String(issue.path[0]) : null;
-        problems.push({ line: row.line, column: field ? columnOfField(field) : null, message: t.has(key) ? t(key, values) : t("validation.invalid") });
+        problems.push({ line: row.line, column: field ? columnOfField(field) : null, message: issueMessage(issue) });
       }
       continue;
     }
@@ -139,47 +136,43 @@ export async function importStampsCsv(actor: Actor, text: string, options: { dry
     const twin = row.input.twinCode;
     if (twin && !lineOfCode.has(twin) && !knownTwins.has(twin)) report({ line: row.line, column: "twin_code", key: "validation.twinUnknown" });
   }
-  if (problems.length) return { ok: false, problems: problems.sort((a, b) => a.line - b.line) };
+  if (problems.length) throw importInvalid(problems);
 
   const created = ready.filter((r) => !existing.has(r.input.code)).length;
-  if (options.dryRun) return { ok: true, dryRun: true, rows: ready.length, created, updated: ready.length - created };
+  if (options.dryRun) return { dryRun: true, rows: ready.length, created, updated: ready.length - created };
 
-  try {
-    await db.transaction(async (tx) => {
-      const apply = async (row: ReadyRow, work: () => Promise<unknown>) => {
-        try {
-          await work();
-        } catch (error) {
-          if (!(error instanceof AppError)) throw error;
-          // Our own checks fail before any statement runs, so the transaction is still usable.
-          const fields = Object.entries(error.fields ?? {});
-          const message = t(`errors.${error.code}`, error.params);
-          if (fields.length) for (const [field] of fields) problems.push({ line: row.line, column: columnOfField(field), message });
-          else problems.push({ line: row.line, column: null, message });
-        }
-      };
-      // First every stamp exists, then twins link, so a pair may arrive in the same file.
-      for (const row of ready) {
-        const { twinCode: _twin, ...input } = row.input;
-        void _twin;
-        if (existing.has(row.input.code)) {
-          const patch = Object.fromEntries(Object.entries(input).filter(([k]) => row.present.has(k))) as Partial<UpdateStampInput>;
-          await apply(row, () => updateStamp(actor, row.input.code, { ...patch, version: 0 }, { ignoreVersion: true, tx }));
-        } else {
-          await apply(row, () => createStamp(actor, { ...input, twinCode: null }, tx));
-        }
+  // Throwing inside the transaction rolls every stored row back.
+  await db.transaction(async (tx) => {
+    const apply = async (row: ReadyRow, work: () => Promise<unknown>) => {
+      try {
+        await work();
+      } catch (error) {
+        if (!(error instanceof AppError)) throw error;
+        // Our own checks fail before any statement runs, so the transaction is still usable.
+        const fields = Object.entries(error.fields ?? {});
+        const message = { key: `errors.${error.code}`, values: error.params };
+        if (fields.length) for (const [field] of fields) problems.push({ line: row.line, column: columnOfField(field), message });
+        else problems.push({ line: row.line, column: null, message });
       }
-      // A pair named from one side only stays linked: the other row's empty twin_code does not undo it.
-      const namedAsTwin = new Set(ready.map((r) => r.input.twinCode).filter(Boolean));
-      for (const row of ready) {
-        if (!row.present.has("twinCode") || (!row.input.twinCode && namedAsTwin.has(row.input.code))) continue;
-        await apply(row, () => updateStamp(actor, row.input.code, { twinCode: row.input.twinCode ?? null, version: 0 }, { ignoreVersion: true, tx }));
+    };
+    // First every stamp exists, then twins link, so a pair may arrive in the same file.
+    for (const row of ready) {
+      const { twinCode: _twin, ...input } = row.input;
+      void _twin;
+      if (existing.has(row.input.code)) {
+        const patch = Object.fromEntries(Object.entries(input).filter(([k]) => row.present.has(k))) as Partial<UpdateStampInput>;
+        await apply(row, () => updateStamp(actor, row.input.code, { ...patch, version: 0 }, { ignoreVersion: true, tx }));
+      } else {
+        await apply(row, () => createStamp(actor, { ...input, twinCode: null }, tx));
       }
-      if (problems.length) throw new RowsFailed();
-    });
-  } catch (error) {
-    if (error instanceof RowsFailed) return { ok: false, problems: problems.sort((a, b) => a.line - b.line) };
-    throw error;
-  }
-  return { ok: true, dryRun: false, rows: ready.length, created, updated: ready.length - created };
+    }
+    // A pair named from one side only stays linked: the other row's empty twin_code does not undo it.
+    const namedAsTwin = new Set(ready.map((r) => r.input.twinCode).filter(Boolean));
+    for (const row of ready) {
+      if (!row.present.has("twinCode") || (!row.input.twinCode && namedAsTwin.has(row.input.code))) continue;
+      await apply(row, () => updateStamp(actor, row.input.code, { twinCode: row.input.twinCode ?? null, version: 0 }, { ignoreVersion: true, tx }));
+    }
+    if (problems.length) throw importInvalid(problems);
+  });
+  return { dryRun: false, rows: ready.length, created, updated: ready.length - created };
 }

@@ -9,7 +9,8 @@ import { pickLocale } from "@/lib/i18n/config";
 import { translator } from "@/lib/i18n/translator";
 import { sendMail } from "@/lib/mail";
 import { stampUrl } from "@/lib/stamps/codes";
-import { todayIso } from "./stamp-events";
+import { todayIso } from "@/lib/dates";
+import type { ReminderResult } from "@/lib/contracts/stamps";
 
 /**
  * E-mails every active keeper (or, with no keeper, every administrator) about a damage report.
@@ -29,12 +30,6 @@ export async function notifyKeepersOfDamage(p: { code: string; name: string; kin
   } catch (error) {
     console.error("damage report mail failed", error);
   }
-}
-
-export interface ReminderResult {
-  sent: { code: string; borrowerName: string; borrowerEmail: string }[];
-  withoutEmail: { code: string; borrowerName: string }[];
-  failed: { code: string; borrowerName: string }[];
 }
 
 /**

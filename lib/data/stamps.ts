@@ -16,30 +16,12 @@ import type {
 } from "@/lib/validation/stamps";
 import { deleteObjects } from "@/lib/s3";
 import { scanObjectKeys } from "./scans";
-import { isUniqueViolation, locationLabel, recordEvent, todayIso } from "./stamp-events";
+import { todayIso } from "@/lib/dates";
+import { isUniqueViolation, locationLabel, recordEvent } from "./stamp-events";
 import { notifyKeepersOfDamage } from "./stamp-mail";
+import type { CheckoutDto, LocationRef, OpenCheckoutDto, StampDto, StampEventDto, StampListItem, StampPage } from "@/lib/contracts/stamps";
 
 // --- DTOs ------------------------------------------------------------------------------------
-
-export interface LocationRef {
-  id: string;
-  site: string;
-  code: string;
-}
-
-export interface CheckoutDto {
-  id: string;
-  borrowerId: string | null;
-  borrowerName: string;
-  borrowerEmail: string | null;
-  workstation: string;
-  outAt: string;
-  dueOn: string;
-  overdue: boolean;
-  note: string | null;
-  checkedOutByName: string | null;
-  lastRemindedAt: string | null;
-}
 
 /** An open check-out as the API shows it; `today` (ISO date) decides whether it is overdue. */
 function toCheckoutDto(c: Checkout, checkedOutByName: string | null, today: string): CheckoutDto {
@@ -56,66 +38,6 @@ function toCheckoutDto(c: Checkout, checkedOutByName: string | null, today: stri
     checkedOutByName,
     lastRemindedAt: c.lastRemindedAt?.toISOString() ?? null,
   };
-}
-
-export interface DamageReportDto {
-  id: string;
-  kind: (typeof damageReports.$inferSelect)["kind"];
-  note: string | null;
-  reportedAt: string;
-  reportedByName: string | null;
-}
-
-/** A row of the stamp table. */
-export interface StampListItem {
-  id: string;
-  code: string;
-  name: string;
-  widthMm: number;
-  heightMm: number;
-  face: Stamp["face"];
-  mirrored: boolean;
-  maker: string | null;
-  madeOn: string | null;
-  condition: Stamp["condition"];
-  location: LocationRef | null;
-  tags: string[];
-  impressionsCount: number;
-  coverageRatio: number | null;
-  updatedAt: string;
-  checkout: { borrowerName: string; workstation: string; dueOn: string; overdue: boolean } | null;
-}
-
-/** Everything the stamp record shows. */
-export interface StampDto extends Omit<StampListItem, "checkout"> {
-  motifId: string | null;
-  stripDepthMm: number | null;
-  weightG: number | null;
-  twin: { code: string; name: string; mirrored: boolean } | null;
-  outlinePath: string | null;
-  notes: string | null;
-  version: number;
-  createdAt: string;
-  checkout: CheckoutDto | null;
-  openDamage: DamageReportDto[];
-}
-
-export interface StampPage {
-  stamps: StampListItem[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
-
-export interface StampEventDto {
-  id: string;
-  kind: (typeof stampEvents.$inferSelect)["kind"];
-  at: string;
-  actorName: string;
-  from: string | null;
-  to: string | null;
-  note: string | null;
-  details: Record<string, unknown> | null;
 }
 
 const toLocationRef = (l: Pick<Location, "id" | "site" | "code"> | null): LocationRef | null => (l && l.id ? { id: l.id, site: l.site, code: l.code } : null);
@@ -667,12 +589,6 @@ export async function returnStamp(actor: Actor, code: string, input: ReturnInput
     if (moved) await recordEvent(tx, stamp.id, actor, { kind: "moved", from: moved.from, to: moved.to });
     return { code: stamp.code, returnedAt: new Date().toISOString() };
   });
-}
-
-export interface OpenCheckoutDto extends CheckoutDto {
-  stampCode: string;
-  stampName: string;
-  location: LocationRef | null;
 }
 
 /** Stamps that are out (or only the overdue ones), the longest overdue first. */

@@ -8,31 +8,7 @@ import { codeFromScan } from "@/lib/stamps/codes";
 import { relocations, stockTakeReport, type ExpectedStamp } from "@/lib/stamps/stock-take";
 import { isUniqueViolation, locationLabel } from "./stamp-events";
 import { updateStamp } from "./stamps";
-
-export interface StockTakeSummary {
-  id: string;
-  site: string;
-  status: "open" | "closed";
-  startedAt: string;
-  endedAt: string | null;
-  startedByName: string | null;
-  expectedAtStart: number;
-  seen: number;
-}
-
-type Place = { id: string; label: string } | null;
-
-export interface StockTakeDto extends StockTakeSummary {
-  expected: number;
-  seenExpected: number;
-  missing: { code: string; name: string; recorded: Place }[];
-  misplaced: { code: string; name: string; recorded: Place; seenAt: Place }[];
-  unexpected: { code: string; name: string | null; reason: string; recorded: Place; seenAt: Place }[];
-  checkedOut: { code: string; name: string }[];
-  recent: { code: string; name: string | null; seenAt: Place; at: string; result: "found" | "misplaced" | "unexpected" }[];
-  relocatable: number;
-  locations: { id: string; code: string }[];
-}
+import type { StockTakeDto, StockTakePlace, StockTakeSummary } from "@/lib/contracts/stamps";
 
 export async function listStockTakes(actor: Actor): Promise<StockTakeSummary[]> {
   assertCan(actor, "data:read");
@@ -111,7 +87,7 @@ export async function getStockTake(actor: Actor, id: string): Promise<StockTakeD
     .leftJoin(checkouts, and(eq(checkouts.stampId, stamps.id), isNull(checkouts.returnedAt)))
     .where(seenIds.length ? or(eq(locations.site, take.site), inArray(stamps.id, seenIds)) : eq(locations.site, take.site));
   const allLocations = await db.select().from(locations);
-  const place = (locationId: string | null): Place => {
+  const place = (locationId: string | null): StockTakePlace => {
     const l = locationId ? allLocations.find((x) => x.id === locationId) : undefined;
     return l ? { id: l.id, label: locationLabel(l)! } : null;
   };

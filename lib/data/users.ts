@@ -12,19 +12,9 @@ import { translator } from "@/lib/i18n/translator";
 import { sendMail } from "@/lib/mail";
 import { assertCan, type Actor } from "@/lib/authz";
 import type { InviteUserInput, UpdateUserInput } from "@/lib/validation/users";
+import type { UserDto } from "@/lib/contracts/people";
 
 export const linkLifetime = { inviteHours: 72, resetMinutes: 60 } as const;
-
-export interface UserDto {
-  id: string;
-  email: string;
-  name: string;
-  role: User["role"];
-  disabled: boolean;
-  invited: boolean;
-  unitSystem: User["unitSystem"];
-  createdAt: string;
-}
 
 export const toUserDto = (u: User): UserDto => ({
   id: u.id,

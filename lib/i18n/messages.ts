@@ -1,4 +1,5 @@
 import type { Locale } from "./config";
+import enApi from "./messages/en/api.json";
 import enAuth from "./messages/en/auth.json";
 import enEmails from "./messages/en/emails.json";
 import enErrors from "./messages/en/errors.json";
@@ -11,7 +12,7 @@ import enStamps from "./messages/en/stamps.json";
 // One file per area, each holding whole top-level namespaces, so areas can grow without
 // touching each other's files. tests/unit/catalogue.test.ts checks no namespace is defined twice.
 export const catalogueFiles = {
-  en: [enShell, enAuth, enPeople, enErrors, enEmails, enLayout, enStamps, enScans],
+  en: [enShell, enAuth, enPeople, enErrors, enEmails, enLayout, enStamps, enScans, enApi],
 } satisfies Record<Locale, object[]>;
 
 const merge = (files: object[]) => Object.assign({}, ...files) as Record<string, unknown>;

@@ -1,5 +1,5 @@
-import type { z } from "zod";
-import { layoutInputSchema } from "@/lib/validation/layout";
+import { z } from "zod";
+import { issueMessage, issuePath } from "@/lib/errors";
 import { buildPattern } from "./arrangements";
 import { waxAreas } from "./area";
 import { LayoutInputError, layoutError, type LayoutIssue } from "./errors";
@@ -9,49 +9,41 @@ import { listImpressions } from "./impressions";
 import { EPS_MM } from "./limits";
 import { buildStampShape } from "./outline";
 import { previewSvg } from "./preview";
+import { checkGap, layoutInputSchema, stampSizeSchema } from "./schema";
 import { pathNameOf, planeGroupOf } from "./symmetry";
-import type { LayoutInput, LayoutResult, LayoutSpec } from "./types";
+import type { LayoutInput, LayoutResult, LayoutSpec, StampSize } from "./types";
 
 export { LayoutInputError } from "./errors";
 export type { LayoutIssue } from "./errors";
 export type * from "./types";
 
-/** Interpolation values of a zod issue, named as the catalogue's placeholders ({min}, {max}, {options}, …). */
-function issueParams(issue: z.core.$ZodIssue): Record<string, number | string | boolean> {
-  const params: Record<string, number | string | boolean> = {};
-  switch (issue.code) {
-    case "too_small":
-      params.min = Number(issue.minimum);
-      break;
-    case "too_big":
-      params.max = Number(issue.maximum);
-      break;
-    case "invalid_type":
-      params.expected = String(issue.expected);
-      break;
-    case "invalid_value":
-      params.options = issue.values.map(String).join(", ");
-      break;
-    case "custom":
-      for (const [key, v] of Object.entries(issue.params ?? {})) {
-        if (typeof v === "number" || typeof v === "string" || typeof v === "boolean") params[key] = v;
-      }
-      break;
-  }
-  return params;
+/** The gap rule alone, for a stamp that was not part of the parsed input. */
+const gapCheckSchema = z.custom<{ stamp: StampSize; gap: { xMm: number; yMm: number } }>().superRefine(checkGap);
+
+function toLayoutIssues(issues: readonly z.core.$ZodIssue[], prefix = ""): LayoutIssue[] {
+  return issues.map((issue) => {
+    const { key, values } = issueMessage(issue);
+    return { field: prefix + issuePath(issue), code: key.replace(/^(validation|layout)\./, ""), messageKey: key, params: values };
+  });
 }
 
-/** Parses engine input with the shared zod schema; any problem becomes a LayoutInputError listing every field. */
+/** Parses engine input with the engine's own schema; any problem becomes a LayoutInputError listing every field. */
 export function parseLayoutInput(input: unknown): LayoutSpec {
   const parsed = layoutInputSchema.safeParse(input);
   if (parsed.success) return parsed.data;
-  const issues: LayoutIssue[] = parsed.error.issues.map((issue) => ({
-    field: issue.path.map(String).join("."),
-    code: issue.message.replace(/^validation\./, ""),
-    messageKey: issue.message,
-    params: issueParams(issue),
-  }));
-  throw new LayoutInputError(issues);
+  throw new LayoutInputError(toLayoutIssues(parsed.error.issues));
+}
+
+/**
+ * A parsed layout whose stamp comes from elsewhere (a library stamp's sizes and outline): checks that
+ * stamp and the gaps it allows, as parsing the whole input would, and returns the engine input.
+ */
+export function withStamp(layout: Omit<LayoutSpec, "stamp">, stamp: unknown): LayoutSpec {
+  const parsed = stampSizeSchema.safeParse(stamp);
+  if (!parsed.success) throw new LayoutInputError(toLayoutIssues(parsed.error.issues, "stamp."));
+  const checked = gapCheckSchema.safeParse({ stamp: parsed.data, gap: layout.gap });
+  if (!checked.success) throw new LayoutInputError(toLayoutIssues(checked.error.issues));
+  return { ...layout, stamp: parsed.data as StampSize };
 }
 
 /**
@@ -63,7 +55,11 @@ export function parseLayoutInput(input: unknown): LayoutSpec {
  * Throws LayoutInputError (field, code, params) for input it cannot lay out; never any other error for bad input.
  */
 export function computeLayout(input: LayoutInput): LayoutResult {
-  const spec = parseLayoutInput(input);
+  return layoutOf(parseLayoutInput(input));
+}
+
+/** As computeLayout, for input already parsed with the engine's schema (the API parses its body once). */
+export function layoutOf(spec: LayoutSpec): LayoutResult {
   const { cloth, stamp, gap, sides } = spec;
   const bandX0 = cloth.margins.leftMm;
   const bandX1 = cloth.widthMm - cloth.margins.rightMm;

@@ -1,14 +1,7 @@
-import type { Arrangement } from "@/lib/validation/layout";
 import type { Affine } from "./geometry";
+import type { Arrangement } from "./schema";
 
-export type {
-  Arrangement,
-  LayoutInput,
-  LayoutSpec,
-  LayoutRequest,
-  StampRef,
-  StampSize,
-} from "@/lib/validation/layout";
+export type { Arrangement, LayoutInput, LayoutSpec, StampSize } from "./schema";
 
 /** Plane symmetry group (International Tables for Crystallography, Vol. A) of a layout of an asymmetric motif. */
 export type PlaneGroup = "p1" | "p2" | "p3" | "p4" | "p6" | "pm" | "pg";

@@ -1,6 +1,6 @@
 /**
- * Why a scan was refused. Stable codes for the API layer, which maps them to a status and a catalogue
- * message (`scans.rejected.<code>`); the domain code never returns prose.
+ * Why a scan was refused: stable codes only. The app's status table (lib/errors.ts) gives each its
+ * HTTP status and the catalogue its message (`scans.rejected.<code>`); the domain never returns prose.
  * - badFileName: the name has path separators, "..", control characters, or is empty or too long (400)
  * - empty: zero bytes (400)
  * - tooLarge: more bytes than allowed (413); params { sizeBytes, maxBytes }
@@ -43,20 +43,3 @@ export class ScanRejected extends Error {
     this.name = "ScanRejected";
   }
 }
-
-/** HTTP status that fits each refusal; the route layer may use it as is. */
-export const scanRejectedStatus: Record<ScanRejectedCode, number> = {
-  badFileName: 400,
-  empty: 400,
-  tooLarge: 413,
-  svgRefused: 415,
-  markupRefused: 415,
-  unsupportedType: 415,
-  notAnImage: 415,
-  truncated: 422,
-  trailingData: 422,
-  corrupt: 422,
-  tooManyPixels: 413,
-  tooSmall: 422,
-  busy: 503,
-};

@@ -1,4 +1,4 @@
-export { ScanRejected, scanRejectedStatus, type ScanRejectedCode, type ScanRejectedParams } from "./errors";
+export { ScanRejected, type ScanRejectedCode, type ScanRejectedParams } from "./errors";
 export { detectType, sniffContent, scanContentTypes, scanExtensions, type ScanType, type SniffResult, type RefusedImageType } from "./detect-type";
 export { checkFileName, downloadFileName, MAX_FILE_NAME_LENGTH } from "./file-name";
 export {

@@ -1,8 +1,8 @@
 import useSWR from "swr";
-import type { ApiTokenDto } from "@/lib/data/api-tokens";
+import { peopleUrls, type ApiTokenDto } from "@/lib/contracts/people";
 import { apiFetch } from "./fetcher";
 
-export const apiTokensKey = "/api/v1/tokens";
+export const apiTokensKey = peopleUrls.tokens();
 
 export function useApiTokens() {
   return useSWR(apiTokensKey, (url: string) => apiFetch<{ tokens: ApiTokenDto[] }>(url));

@@ -1,14 +1,10 @@
 import useSWR from "swr";
-import type { CoveragePreviewDto, ScanDto, SimilarStampDto } from "@/lib/data/scans";
+import { scanUrls, type CoveragePreviewDto, type ScanDto, type ScansAnswer, type SimilarStampDto } from "@/lib/contracts/scans";
 import { apiFetch } from "./fetcher";
 
-export const scansKey = (code: string) => `/api/v1/stamps/${encodeURIComponent(code)}/scans`;
-export const similarKey = (code: string) => `/api/v1/stamps/${encodeURIComponent(code)}/similar`;
-
-export interface ScansAnswer {
-  scans: ScanDto[];
-  limits: { maxBytes: number; maxPixels: number };
-}
+export const scansKey = scanUrls.list;
+export const similarKey = scanUrls.similar;
+export type { ScansAnswer };
 
 /** A stamp's scans, newest first, with the upload limits of this server. */
 export function useScans(code: string, fallback?: ScansAnswer) {
@@ -23,5 +19,5 @@ export function useSimilarStamps(code: string) {
 /** Coverage at a polarity and threshold (Otsu's when null); the last answer stays while the next one loads. */
 export function useCoveragePreview(scan: Pick<ScanDto, "stampCode" | "id">, polarity: string, threshold: number | null) {
   const query = new URLSearchParams({ polarity, ...(threshold !== null ? { threshold: String(threshold) } : {}) });
-  return useSWR(`${scansKey(scan.stampCode)}/${scan.id}/coverage?${query}`, (url: string) => apiFetch<{ coverage: CoveragePreviewDto }>(url), { keepPreviousData: true });
+  return useSWR(scanUrls.coverage(scan.stampCode, scan.id, String(query)), (url: string) => apiFetch<{ coverage: CoveragePreviewDto }>(url), { keepPreviousData: true });
 }

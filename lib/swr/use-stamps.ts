@@ -1,8 +1,8 @@
 import useSWR from "swr";
-import type { StampPage } from "@/lib/data/stamps";
+import { stampUrls, type StampPage } from "@/lib/contracts/stamps";
 import { apiFetch } from "./fetcher";
 
-export const stampsKey = (query: string) => `/api/v1/stamps${query ? `?${query}` : ""}`;
+export const stampsKey = (query: string) => stampUrls.list(query);
 
 /** One page of the stamp table; the previous page stays on screen while the next one loads. */
 export function useStamps(query: string) {

@@ -1,8 +1,8 @@
 import useSWR from "swr";
-import type { StockTakeDto } from "@/lib/data/stock-takes";
+import { stampUrls, type StockTakeDto } from "@/lib/contracts/stamps";
 import { apiFetch } from "./fetcher";
 
-export const stockTakeKey = (id: string) => `/api/v1/stock-takes/${id}`;
+export const stockTakeKey = stampUrls.stockTake;
 
 /** A count's progress and report; refreshed after each sighting and every few seconds while open (several people may count at once). */
 export function useStockTake(id: string, fallback: StockTakeDto) {

@@ -1,124 +1,12 @@
 import { z } from "zod";
-import {
-  CLOTH_WIDTH_MAX_MM,
-  CLOTH_WIDTH_MIN_MM,
-  DIAGONAL_MAX_DENOMINATOR,
-  GAP_MAX_MM,
-  MIN_STEP_MM,
-  OUTLINE_MAX_CHARS,
-  PIECES_MAX,
-  ROTATION_ORDERS,
-  RUN_LENGTH_MAX_MM,
-  RUN_LENGTH_MIN_MM,
-  STAMP_SIDE_MAX_MM,
-  STAMP_SIDE_MIN_MM,
-  WINDOW_DEFAULT_LENGTH_MM,
-  WINDOW_MAX_LENGTH_MM,
-} from "@/lib/layout/limits";
-import { simpleFraction } from "@/lib/layout/fraction";
+import { issueKey } from "@/lib/errors";
+import { checkArrangement, checkGap, FILL_RULES, layoutShape, stampSizeSchema, type StampSize } from "@/lib/layout/schema";
 
-// Issue messages are catalogue keys, never prose: the API layer translates them with next-intl.
-// Zod keeps its issue fields (minimum, maximum, values, …) beside the key for interpolation.
+// The body of POST /api/v1/layout: the engine's own input schema (lib/layout/schema.ts), with one
+// addition — the stamp may be named by the code of a stamp in the library.
 
-export const ARRANGEMENTS = [
-  "straight",
-  "half-drop",
-  "brick",
-  "mirror",
-  "turnover",
-  "half-drop-mirror",
-  "diagonal",
-  "rotation",
-] as const;
-export type Arrangement = (typeof ARRANGEMENTS)[number];
-export const ALIGNMENTS = ["centre", "left"] as const;
-export const EDGE_MODES = ["whole", "clip"] as const;
-export const FILL_RULES = ["nonzero", "evenodd"] as const;
-
-/**
- * Maps a zod issue to a key of the "validation.*" catalogue namespace, the same keys lib/validation/issues.ts
- * gives by issue code (so its interpolation values still apply), plus notAnInteger.
- */
-export function messageKey(issue: z.core.$ZodRawIssue): string {
-  switch (issue.code) {
-    case "invalid_type":
-      if (issue.input === undefined) return "validation.required";
-      return issue.expected === "int" ? "validation.notAnInteger" : "validation.invalidType";
-    case "too_small":
-      return issue.origin === "string" ? "validation.required" : "validation.tooSmall";
-    case "too_big":
-      return issue.origin === "string" ? "validation.tooLong" : "validation.tooBig";
-    case "invalid_value":
-      return "validation.invalidOption";
-    default:
-      return "validation.invalid";
-  }
-}
-
-const keyed = { error: messageKey };
-
-function mm(min: number, max: number) {
-  return z.number(keyed).min(min, keyed).max(max, keyed);
-}
-
-const clothSchema = z
-  .object(
-    {
-      widthMm: mm(CLOTH_WIDTH_MIN_MM, CLOTH_WIDTH_MAX_MM),
-      lengthMm: mm(RUN_LENGTH_MIN_MM, RUN_LENGTH_MAX_MM).optional(),
-      pieces: z.number(keyed).int(keyed).min(1, keyed).max(PIECES_MAX, keyed).optional(),
-      pieceLengthMm: mm(RUN_LENGTH_MIN_MM, RUN_LENGTH_MAX_MM).optional(),
-      margins: z
-        .object({ leftMm: mm(0, CLOTH_WIDTH_MAX_MM).default(0), rightMm: mm(0, CLOTH_WIDTH_MAX_MM).default(0) }, keyed)
-        .default({ leftMm: 0, rightMm: 0 }),
-    },
-    keyed,
-  )
-  .superRefine((cloth, ctx) => {
-    const byPieces = cloth.pieces !== undefined || cloth.pieceLengthMm !== undefined;
-    if (cloth.lengthMm !== undefined && byPieces) {
-      ctx.addIssue({ code: "custom", path: ["lengthMm"], message: "validation.lengthOrPieces" });
-    } else if (cloth.lengthMm === undefined && !byPieces) {
-      ctx.addIssue({ code: "custom", path: ["lengthMm"], message: "validation.required" });
-    } else if (byPieces) {
-      if (cloth.pieces === undefined) ctx.addIssue({ code: "custom", path: ["pieces"], message: "validation.required" });
-      if (cloth.pieceLengthMm === undefined) {
-        ctx.addIssue({ code: "custom", path: ["pieceLengthMm"], message: "validation.required" });
-      }
-      if (cloth.pieces !== undefined && cloth.pieceLengthMm !== undefined) {
-        if (Number.isInteger(cloth.pieces) && cloth.pieces * cloth.pieceLengthMm > RUN_LENGTH_MAX_MM) {
-          ctx.addIssue({
-            code: "custom",
-            path: ["pieces"],
-            message: "validation.runTooLong",
-            params: { max: RUN_LENGTH_MAX_MM },
-          });
-        }
-      }
-    }
-    // Zod runs this even when a field above failed; compare margins only with a width that passed its own check.
-    const widthValid = cloth.widthMm >= CLOTH_WIDTH_MIN_MM && cloth.widthMm <= CLOTH_WIDTH_MAX_MM;
-    if (widthValid && cloth.margins.leftMm + cloth.margins.rightMm >= cloth.widthMm) {
-      ctx.addIssue({
-        code: "custom",
-        path: ["margins"],
-        message: "validation.marginsWiderThanCloth",
-        params: { widthMm: cloth.widthMm },
-      });
-    }
-  });
-
-const stampShape = {
-  widthMm: mm(STAMP_SIDE_MIN_MM, STAMP_SIDE_MAX_MM),
-  heightMm: mm(STAMP_SIDE_MIN_MM, STAMP_SIDE_MAX_MM),
-  /** Fraction of the footprint that carries wax, used when there is no outline. */
-  coverage: z.number(keyed).gt(0, keyed).max(1, keyed).optional(),
-  /** SVG path data in mm, origin at the footprint's top-left corner. */
-  outline: z.string(keyed).trim().min(1, keyed).max(OUTLINE_MAX_CHARS, keyed).optional(),
-  fillRule: z.enum(FILL_RULES, keyed).default("nonzero"),
-};
-
-const stampSchema = z.object(stampShape, keyed);
+const keyed = { error: (issue: z.core.$ZodRawIssue) => issueKey(issue) };
+const stampShape = stampSizeSchema.shape;
 
 const stampRequestSchema = z
   .object(
@@ -153,97 +41,18 @@ const stampRequestSchema = z
         },
   );
 
-export type StampSize = z.output<typeof stampSchema>;
-/** A stamp given by its sizes, or by the code of a stamp in the library (resolved by the API layer). */
+/** A stamp given by its sizes, or by the code of a stamp in the library (resolved by the data layer). */
 export type StampRef = StampSize | { code: string };
-
-const commonShape = {
-  cloth: clothSchema,
-  gap: z
-    .object(
-      {
-        xMm: mm(-(STAMP_SIDE_MAX_MM - MIN_STEP_MM), GAP_MAX_MM).default(0),
-        yMm: mm(-(STAMP_SIDE_MAX_MM - MIN_STEP_MM), GAP_MAX_MM).default(0),
-      },
-      keyed,
-    )
-    .default({ xMm: 0, yMm: 0 }),
-  arrangement: z.enum(ARRANGEMENTS, keyed),
-  /** Diagonal only: each row is shifted across by this fraction of the repeat width (p/q, q ≤ 12). */
-  diagonalStep: z.number(keyed).gt(0, keyed).lt(1, keyed).optional(),
-  /** Rotation only: copies turned about the stamp's top-left corner (default 4). */
-  rotationOrder: z.literal(ROTATION_ORDERS, keyed).optional(),
-  align: z.enum(ALIGNMENTS, keyed).default("centre"),
-  edges: z.enum(EDGE_MODES, keyed).default("whole"),
-  sides: z.literal([1, 2], keyed).default(1),
-  /** Window of the run (within one piece) for the impression list and the preview; default the first metre. */
-  window: z
-    .object(
-      {
-        startMm: mm(0, RUN_LENGTH_MAX_MM).default(0),
-        lengthMm: z.number(keyed).gt(0, keyed).max(WINDOW_MAX_LENGTH_MM, keyed).default(WINDOW_DEFAULT_LENGTH_MM),
-      },
-      keyed,
-    )
-    .default({ startMm: 0, lengthMm: WINDOW_DEFAULT_LENGTH_MM }),
-  /** Ask for the impression list of the window. */
-  impressions: z.boolean(keyed).default(false),
-  /** Ask for an SVG preview of the window. */
-  preview: z.boolean(keyed).default(false),
-};
-
-type ArrangementFields = {
-  arrangement: Arrangement;
-  diagonalStep?: number;
-};
-
-function checkArrangement(v: ArrangementFields, ctx: z.RefinementCtx) {
-  if (v.arrangement === "diagonal" && v.diagonalStep === undefined) {
-    ctx.addIssue({ code: "custom", path: ["diagonalStep"], message: "validation.required" });
-  }
-  if (v.diagonalStep !== undefined && simpleFraction(v.diagonalStep) === null) {
-    ctx.addIssue({
-      code: "custom",
-      path: ["diagonalStep"],
-      message: "validation.notSimpleFraction",
-      params: { maxDenominator: DIAGONAL_MAX_DENOMINATOR },
-    });
-  }
-}
-
-function checkGap(v: { stamp: { widthMm: number; heightMm: number }; gap: { xMm: number; yMm: number } }, ctx: z.RefinementCtx) {
-  const minX = -(v.stamp.widthMm - MIN_STEP_MM);
-  const minY = -(v.stamp.heightMm - MIN_STEP_MM);
-  if (v.gap.xMm < minX) {
-    ctx.addIssue({ code: "custom", path: ["gap", "xMm"], message: "validation.gapTooNegative", params: { min: minX } });
-  }
-  if (v.gap.yMm < minY) {
-    ctx.addIssue({ code: "custom", path: ["gap", "yMm"], message: "validation.gapTooNegative", params: { min: minY } });
-  }
-}
-
-/**
- * The engine's input: a stamp given by its sizes. Lengths in mm. `computeLayout` parses with it, so
- * direct callers get the same defaults and checks as the API.
- */
-export const layoutInputSchema = z.object({ ...commonShape, stamp: stampSchema }, keyed).superRefine((v, ctx) => {
-  checkArrangement(v, ctx);
-  checkGap(v, ctx);
-});
 
 /**
  * Body of POST /api/v1/layout: as the engine input, but the stamp may be `{ code }` of a library stamp.
- * The handler resolves the code to sizes and outline, then calls `computeLayout`.
+ * The handler resolves the code to sizes and outline, then lays it out.
  */
 export const layoutRequestSchema = z
-  .object({ ...commonShape, stamp: stampRequestSchema }, keyed)
+  .object({ ...layoutShape, stamp: stampRequestSchema }, keyed)
   .superRefine((v, ctx) => {
     checkArrangement(v, ctx);
     if (!("code" in v.stamp)) checkGap({ stamp: v.stamp, gap: v.gap }, ctx);
   });
 
-/** What callers may pass to `computeLayout` (defaults optional). */
-export type LayoutInput = z.input<typeof layoutInputSchema>;
-/** The engine input after parsing, with defaults filled in. */
-export type LayoutSpec = z.output<typeof layoutInputSchema>;
 export type LayoutRequest = z.output<typeof layoutRequestSchema>;

@@ -1,4 +1,6 @@
 import { z } from "zod";
+import { todayIso } from "@/lib/dates";
+import { boolParam, idParamSchema, isoDate, optionalText, requiredText } from "./common";
 
 // One schema per input of the stamp shelf, shared by forms, server actions, route handlers,
 // the CSV import and the tests. Lengths in mm, masses in g, dates as YYYY-MM-DD.
@@ -20,17 +22,6 @@ export const locationCodeSchema = z
   .toUpperCase()
   .regex(/^[A-Z0-9][A-Z0-9._/-]{0,39}$/, "validation.locationCode");
 
-const requiredText = (max: number) => z.string("validation.required").trim().min(1, "validation.required").max(max, "validation.tooLong");
-
-/** Optional free text: empty becomes null, so a form's blank field clears the value. */
-const optionalText = (max: number) =>
-  z
-    .string()
-    .trim()
-    .max(max, "validation.tooLong")
-    .transform((v) => (v === "" ? null : v))
-    .nullable()
-    .optional();
 
 /** Rounded to 0.1 mm: finer than any stamp is measured, and it keeps inch round trips stable. */
 const mm = (min: number, max: number, message: string) =>
@@ -40,13 +31,6 @@ const mm = (min: number, max: number, message: string) =>
     .max(max, message)
     .transform((v) => Math.round(v * 10) / 10);
 
-const isoDate = z
-  .string()
-  .trim()
-  .regex(/^\d{4}-\d{2}-\d{2}$/, "validation.date")
-  .refine((v) => !Number.isNaN(Date.parse(`${v}T00:00:00Z`)) && new Date(`${v}T00:00:00Z`).toISOString().startsWith(v), "validation.date");
-
-const todayIso = () => new Date().toISOString().slice(0, 10);
 
 const tag = z.string().trim().toLowerCase().min(1, "validation.tag").max(40, "validation.tag");
 const tags = z
@@ -145,7 +129,6 @@ const commaList = <T extends readonly [string, ...string[]]>(values: T) =>
     return list as T[number][];
   });
 
-const boolParam = z.enum(["true", "false"], "validation.invalidOption").transform((v) => v === "true");
 const sizeParam = z.coerce.number("validation.number").positive("validation.tooSmall").max(10_000, "validation.tooBig");
 
 /** GET /api/v1/stamps query string (also the export's and the table's). */
@@ -174,12 +157,6 @@ export const stampListQuerySchema = z
 
 export type StampListQuery = z.output<typeof stampListQuerySchema>;
 
-/** URLSearchParams → plain object for the list schema; empty values count as absent. */
-export function queryObject(params: URLSearchParams): Record<string, string> {
-  const out: Record<string, string> = {};
-  for (const [key, value] of params.entries()) if (value !== "") out[key] = out[key] ? `${out[key]},${value}` : value;
-  return out;
-}
 
 // --- locations -----------------------------------------------------------------------------
 
@@ -195,7 +172,7 @@ export const updateLocationSchema = locationSchema
   .strict()
   .refine((v) => Object.keys(v).length > 0, "validation.nothingToChange");
 export type LocationInput = z.output<typeof locationSchema>;
-export const locationIdParamSchema = z.object({ id: z.uuid("validation.notFound") });
+export const locationIdParamSchema = idParamSchema;
 
 // --- check-out, return, condition, damage ---------------------------------------------------
 
@@ -250,6 +227,12 @@ export type ConditionChangeInput = z.output<typeof conditionChangeSchema>;
 
 export const deleteStampSchema = z.object({ version: z.coerce.number().int().positive().optional() });
 
+/** GET /api/v1/checkouts: `?overdue=true` lists only check-outs past their due date. */
+export const checkoutListQuerySchema = z.object({ overdue: boolParam.optional() });
+
+/** POST /api/v1/stamps/import: `?dryRun=true` only checks the file. */
+export const importQuerySchema = z.object({ dryRun: boolParam.optional() });
+
 // --- stock-take -----------------------------------------------------------------------------
 
 export const startStockTakeSchema = z.object({ site: requiredText(80) }).strict();
@@ -261,4 +244,5 @@ export const sightingSchema = z
   })
   .strict();
 
-export const stockTakeIdParamSchema = z.object({ id: z.uuid("validation.notFound") });
+export const stockTakeIdParamSchema = idParamSchema;
+export const sightingParamSchema = stockTakeIdParamSchema.extend({ code: stampCodeSchema });

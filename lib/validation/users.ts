@@ -35,7 +35,7 @@ export const updateProfileSchema = z.object({ name, unitSystem: unitSystemSchema
 
 export const createApiTokenSchema = z.object({ name: z.string().trim().min(1, "validation.required").max(80, "validation.tooLong") });
 
-export const idParamSchema = z.object({ id: z.uuid("validation.notFound") });
+export { idParamSchema } from "./common";
 
 export type InviteUserInput = z.infer<typeof inviteUserSchema>;
 export type UpdateUserInput = z.infer<typeof updateUserSchema>;

@@ -5,7 +5,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { seedScans } from "@/db/seed/scans";
 import { stampEvents, stampScans, stamps, type Stamp } from "@/db/schema";
 import { objectStore } from "@/lib/s3";
-import { scanRejectedStatus } from "@/lib/scans";
+import { scanRejectedStatus } from "@/lib/errors";
 import { createUser, db } from "../helpers/db";
 import { testEnv } from "../helpers/env";
 import { hostileFiles, hostileLimits } from "../helpers/hostile-files";

@@ -1,14 +1,14 @@
 import { describe, expect, it } from "vitest";
 import type { z } from "zod";
 import { translator } from "@/lib/i18n/translator";
-import { translateIssues } from "@/lib/validation/issues";
+import { issueFields } from "@/lib/error-body";
 import { inviteUserSchema, setPasswordSchema } from "@/lib/validation/users";
 
 const t = translator("en");
 const fieldsOf = (schema: z.ZodType, value: unknown) => {
   const result = schema.safeParse(value, { reportInput: true });
   if (result.success) throw new Error("expected the value to be refused");
-  return translateIssues(result.error.issues, t, t.has);
+  return issueFields(result.error.issues, t);
 };
 
 describe("translated validation messages", () => {

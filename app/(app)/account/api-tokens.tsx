@@ -5,7 +5,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import type { ApiTokenDto } from "@/lib/data/api-tokens";
+import { peopleUrls, type ApiTokenDto } from "@/lib/contracts/people";
 import { ApiError, apiFetch } from "@/lib/swr/fetcher";
 import { useApiTokens } from "@/lib/swr/use-api-tokens";
 
@@ -25,7 +25,7 @@ export function ApiTokens() {
     setBusy(true);
     setProblem(null);
     try {
-      const { token } = await apiFetch<{ token: ApiTokenDto & { secret: string } }>("/api/v1/tokens", { method: "POST", body: JSON.stringify({ name }) });
+      const { token } = await apiFetch<{ token: ApiTokenDto & { secret: string } }>(peopleUrls.tokens(), { method: "POST", body: JSON.stringify({ name }) });
       setSecret(token.secret);
       setCopied(false);
       setName("");
@@ -40,7 +40,7 @@ export function ApiTokens() {
   async function revoke(token: ApiTokenDto) {
     if (!window.confirm(t("revokeConfirm", { name: token.name }))) return;
     try {
-      await apiFetch(`/api/v1/tokens/${token.id}`, { method: "DELETE" });
+      await apiFetch(peopleUrls.token(token.id), { method: "DELETE" });
       await mutate();
     } catch (e) {
       setProblem(e instanceof ApiError ? e : new ApiError(0, "internal", common("error")));

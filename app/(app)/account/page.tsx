@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { getTranslations } from "next-intl/server";
+import Link from "next/link";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { requirePageActor } from "@/lib/session";
 import { ApiTokens } from "./api-tokens";
@@ -21,6 +22,11 @@ export default async function AccountPage() {
         </Panel>
         <Panel title={t("account.tokens.title")} intro={t("account.tokens.intro")}>
           <ApiTokens />
+          <p className="mt-4 text-sm">
+            <Link href="/api-reference" className="text-stone-800 underline underline-offset-2 hover:text-stone-950">
+              {t("account.tokens.reference")}
+            </Link>
+          </p>
         </Panel>
       </div>
     </>

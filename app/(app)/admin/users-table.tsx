@@ -21,7 +21,7 @@ import { cn } from "@/components/ui/cn";
 import { Notice } from "@/components/ui/notice";
 import { SortableTableHead } from "@/components/ui/sortable-table-head";
 import { initialFormState } from "@/lib/actions/form-state";
-import type { UserDto } from "@/lib/data/users";
+import type { UserDto } from "@/lib/contracts/people";
 import { roles } from "@/lib/permissions";
 import { userRowAction } from "./actions";
 

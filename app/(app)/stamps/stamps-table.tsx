@@ -23,8 +23,8 @@ import { Button } from "@/components/ui/button";
 import { cn } from "@/components/ui/cn";
 import { Notice } from "@/components/ui/notice";
 import { SortableTableHead } from "@/components/ui/sortable-table-head";
-import type { LocationDto } from "@/lib/data/locations";
-import type { StampListItem } from "@/lib/data/stamps";
+import { stampUrls, type LocationDto } from "@/lib/contracts/stamps";
+import type { StampListItem } from "@/lib/contracts/stamps";
 import type { UnitSystem } from "@/lib/stamps/format";
 import { useStamps } from "@/lib/swr/use-stamps";
 import { inchesToMm, mmToInches } from "@/lib/units";
@@ -419,7 +419,7 @@ export function StampsTable({
                 ))}
             </fieldset>
           </details>
-          <a href={`/api/v1/stamps/export?${filterQuery}`} className="rounded-md border border-stone-300 bg-white px-3 py-1.5 text-sm hover:bg-stone-100" download>
+          <a href={stampUrls.export(filterQuery)} className="rounded-md border border-stone-300 bg-white px-3 py-1.5 text-sm hover:bg-stone-100" download>
             {t("stamps.table.export")}
           </a>
           <Link href={`/stamps/labels?${filterQuery}`} className="rounded-md border border-stone-300 bg-white px-3 py-1.5 text-sm hover:bg-stone-100">

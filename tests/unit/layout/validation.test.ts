@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { layoutInputSchema, layoutRequestSchema } from "@/lib/validation/layout";
+import { layoutInputSchema } from "@/lib/layout/schema";
+import { layoutRequestSchema } from "@/lib/validation/layout";
 
 const body = {
   cloth: { widthMm: 1150, lengthMm: 2500, margins: { leftMm: 20, rightMm: 20 } },

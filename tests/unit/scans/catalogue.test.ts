@@ -1,12 +1,12 @@
 import { describe, expect, it } from "vitest";
 import { translator } from "@/lib/i18n/translator";
-import { scanRejectedStatus } from "@/lib/scans";
+import { scanRejectedStatus } from "@/lib/errors";
 
 describe("scan refusal messages", () => {
   const t = translator("en");
   it("has a message for every refusal code and every scan problem", () => {
     for (const code of Object.keys(scanRejectedStatus)) expect(t.has(`scans.rejected.${code}`), code).toBe(true);
-    for (const code of ["duplicate", "uploadMissing"]) expect(t.has(`scans.problems.${code}`), code).toBe(true);
+    for (const code of ["scanDuplicate", "scanUploadMissing"]) expect(t.has(`errors.${code}`), code).toBe(true);
   });
 
   it("fills in the limits the server sends", () => {

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { downloadFileName, processScan, ScanRejected, scanRejectedStatus } from "@/lib/scans";
+import { scanRejectedStatus } from "@/lib/errors";
+import { downloadFileName, processScan, ScanRejected } from "@/lib/scans";
 import { newObjectKey } from "@/lib/object-store";
 import { hostileFiles, hostileLimits } from "@/tests/helpers/hostile-files";
 

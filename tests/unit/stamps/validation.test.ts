@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { checkoutSchema, createStampSchema, queryObject, stampListQuerySchema, updateStampSchema } from "@/lib/validation/stamps";
+import { queryObject } from "@/lib/validation/common";
+import { checkoutSchema, createStampSchema, stampListQuerySchema, updateStampSchema } from "@/lib/validation/stamps";
 
 const base = { code: "cp-0142", name: " Parang ", widthMm: 210.04, heightMm: 200 };
 

@@ -10,7 +10,9 @@ import { lengthText, massText, sizeText } from "@/components/stamps/measure";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { listLocations } from "@/lib/data/locations";
-import { getStamp, listBorrowers, stampHistory, type StampDto } from "@/lib/data/stamps";
+import { listScans, scanLimits } from "@/lib/data/scans";
+import { getStamp, listBorrowers, stampHistory } from "@/lib/data/stamps";
+import type { StampDto } from "@/lib/contracts/stamps";
 import { AppError } from "@/lib/errors";
 import { can } from "@/lib/permissions";
 import { requirePageActor } from "@/lib/session";
@@ -42,13 +44,15 @@ export default async function StampPage({ params, searchParams }: Props) {
   const { saved } = await searchParams;
   const stamp = await load(code, () => getStamp(actor, stampCodeSchema.parse(code)));
   const canWrite = can(actor.role, "stamps:write");
-  const [t, format, history, locations, borrowers] = await Promise.all([
+  const [t, format, history, locations, borrowers, scans] = await Promise.all([
     getTranslations(),
     getFormatter(),
     stampHistory(actor, stamp.code),
     canWrite ? listLocations(actor) : [],
     canWrite ? listBorrowers(actor) : [],
+    listScans(actor, stamp.code),
   ]);
+  const { maxBytes, maxPixels } = scanLimits();
   const units = actor.unitSystem;
   const none = <span className="text-stone-400">{t("stamps.record.notRecorded")}</span>;
   const day = (iso: string) => format.dateTime(new Date(`${iso}T00:00:00Z`), { dateStyle: "medium", timeZone: "UTC" });
@@ -159,7 +163,13 @@ export default async function StampPage({ params, searchParams }: Props) {
             {stamp.notes ? <p className="mt-4 whitespace-pre-line border-t border-stone-100 pt-3 text-sm text-stone-700">{stamp.notes}</p> : null}
           </Panel>
 
-          <StampScans actor={actor} code={stamp.code} coverageRatio={stamp.coverageRatio} />
+          <StampScans
+            code={stamp.code}
+            coverageRatio={stamp.coverageRatio}
+            canWrite={canWrite}
+            unitSystem={units}
+            initial={{ scans, limits: { maxBytes, maxPixels } }}
+          />
 
           <Panel title={t("stamps.history.title")}>
             <StampHistory events={history} unitSystem={units} />

@@ -5,6 +5,7 @@ import { useTranslations } from "next-intl";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
+import { stampUrls } from "@/lib/contracts/stamps";
 
 interface Problem {
   line: number;
@@ -31,7 +32,7 @@ export function ImportForm() {
     setBusy(true);
     setOutcome(null);
     try {
-      const response = await fetch(`/api/v1/stamps/import${dryRun ? "?dryRun=true" : ""}`, { method: "POST", headers: { "content-type": "text/csv", accept: "application/json" }, body: await file.text() });
+      const response = await fetch(stampUrls.import(dryRun), { method: "POST", headers: { "content-type": "text/csv", accept: "application/json" }, body: await file.text() });
       const body = await response.json().catch(() => null);
       if (response.ok) setOutcome({ kind: "ok", ...body.import });
       else if (body?.error?.rows) setOutcome({ kind: "invalid", message: body.error.message, rows: body.error.rows });

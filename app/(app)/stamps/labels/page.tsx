@@ -10,7 +10,8 @@ import { listAllStamps } from "@/lib/data/stamps";
 import { env } from "@/lib/env";
 import { requirePageActor } from "@/lib/session";
 import { stampUrl } from "@/lib/stamps/codes";
-import { queryObject, stampCodeSchema, stampListQuerySchema } from "@/lib/validation/stamps";
+import { queryObject } from "@/lib/validation/common";
+import { stampCodeSchema, stampListQuerySchema } from "@/lib/validation/stamps";
 import { PrintButton } from "./print-button";
 
 export async function generateMetadata(): Promise<Metadata> {

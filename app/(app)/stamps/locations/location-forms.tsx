@@ -7,7 +7,7 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { initialFormState } from "@/lib/actions/form-state";
-import type { LocationDto } from "@/lib/data/locations";
+import type { LocationDto } from "@/lib/contracts/stamps";
 import { createLocationAction, locationRowAction } from "../actions";
 
 export function LocationForm({ sites }: { sites: string[] }) {

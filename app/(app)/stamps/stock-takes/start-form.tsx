@@ -6,7 +6,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import type { StockTakeSummary } from "@/lib/data/stock-takes";
+import { stampUrls, type StockTakeSummary } from "@/lib/contracts/stamps";
 import { ApiError, apiFetch } from "@/lib/swr/fetcher";
 
 export function StartStockTake({ sites }: { sites: { site: string; open: boolean }[] }) {
@@ -20,7 +20,7 @@ export function StartStockTake({ sites }: { sites: { site: string; open: boolean
     setBusy(true);
     setProblem(null);
     try {
-      const { stockTake } = await apiFetch<{ stockTake: StockTakeSummary }>("/api/v1/stock-takes", { method: "POST", body: JSON.stringify({ site }) });
+      const { stockTake } = await apiFetch<{ stockTake: StockTakeSummary }>(stampUrls.stockTakes(), { method: "POST", body: JSON.stringify({ site }) });
       router.push(`/stamps/stock-takes/${stockTake.id}`);
     } catch (e) {
       setProblem(e instanceof ApiError ? e : new ApiError(0, "internal", t("common.error")));

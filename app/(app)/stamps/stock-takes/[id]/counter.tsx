@@ -8,7 +8,7 @@ import { Button } from "@/components/ui/button";
 import { cn } from "@/components/ui/cn";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader, Panel } from "@/components/ui/panel";
-import type { StockTakeDto } from "@/lib/data/stock-takes";
+import { stampUrls, type StockTakeDto } from "@/lib/contracts/stamps";
 import { ApiError, apiFetch } from "@/lib/swr/fetcher";
 import { useStockTake } from "@/lib/swr/use-stock-take";
 
@@ -35,7 +35,7 @@ export function StockTakeCounter({ initial, canWrite }: { initial: StockTakeDto;
     }
     setBusy(true);
     try {
-      const { sighting } = await apiFetch<{ sighting: { code: string; known: boolean; name: string | null; location: string } }>(`/api/v1/stock-takes/${take.id}/sightings`, {
+      const { sighting } = await apiFetch<{ sighting: { code: string; known: boolean; name: string | null; location: string } }>(stampUrls.sightings(take.id), {
         method: "POST",
         body: JSON.stringify({ code: text, locationId }),
       });
@@ -56,11 +56,11 @@ export function StockTakeCounter({ initial, canWrite }: { initial: StockTakeDto;
     }
   }
 
-  async function post(path: string, confirmText: string, done: (body: { moved?: string[] }) => string) {
+  async function post(path: "relocate" | "end", confirmText: string, done: (body: { moved?: string[] }) => string) {
     if (!window.confirm(confirmText)) return;
     setBusy(true);
     try {
-      const body = await apiFetch<{ moved?: string[] }>(`/api/v1/stock-takes/${take.id}/${path}`, { method: "POST" });
+      const body = await apiFetch<{ moved?: string[] }>(stampUrls.stockTakeAction(take.id, path), { method: "POST" });
       setFeedback({ tone: "success", text: done(body) });
       await mutate();
     } catch (e) {
@@ -72,7 +72,7 @@ export function StockTakeCounter({ initial, canWrite }: { initial: StockTakeDto;
 
   async function undo(c: string) {
     try {
-      await apiFetch(`/api/v1/stock-takes/${take.id}/sightings/${encodeURIComponent(c)}`, { method: "DELETE" });
+      await apiFetch(stampUrls.sighting(take.id, c), { method: "DELETE" });
       await mutate();
     } catch (e) {
       setFeedback({ tone: "error", text: e instanceof ApiError ? e.message : t("common.error") });

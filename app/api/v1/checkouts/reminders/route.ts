@@ -1,5 +1,7 @@
 // POST /api/v1/checkouts/reminders — e-mail every borrower whose check-out is overdue (keepers)
-import { apiRoute } from "@/lib/api/route";
+import { apiRoute, methods } from "@/lib/api/route";
 import { sendOverdueReminders } from "@/lib/data/stamp-mail";
 
-export const POST = apiRoute({ permission: "stamps:write" }, async ({ actor }) => ({ reminders: await sendOverdueReminders(actor) }));
+export const { GET, POST, PUT, PATCH, DELETE } = methods({
+  POST: apiRoute({ operation: "sendOverdueReminders", permission: "stamps:write" }, async ({ actor }) => ({ reminders: await sendOverdueReminders(actor) })),
+});

@@ -1,17 +1,18 @@
 // GET /api/v1/stamps/export — the stamps matching the list filters as a CSV file (same query as GET /api/v1/stamps)
-import { apiRoute, parseOrThrow } from "@/lib/api/route";
+import { apiRoute, methods } from "@/lib/api/route";
+import { todayIso } from "@/lib/dates";
 import { exportStampsCsv } from "@/lib/data/stamp-csv";
-import { queryObject, stampListQuerySchema } from "@/lib/validation/stamps";
+import { stampListQuerySchema } from "@/lib/validation/stamps";
 
-export const GET = apiRoute({ permission: "data:read" }, async ({ actor, request }) => {
-  const query = parseOrThrow(stampListQuerySchema, queryObject(new URL(request.url).searchParams));
-  const csv = await exportStampsCsv(actor, query);
-  const stamp = new Date().toISOString().slice(0, 10);
-  return new Response(`\uFEFF${csv}`, {
-    headers: {
-      "content-type": "text/csv; charset=utf-8",
-      "content-disposition": `attachment; filename="stamps-${stamp}.csv"`,
-      "cache-control": "no-store",
-    },
-  });
+export const { GET, POST, PUT, PATCH, DELETE } = methods({
+  GET: apiRoute({ operation: "exportStamps", permission: "data:read", query: stampListQuerySchema, answers: { type: "text/csv" } }, async ({ actor, query }) => {
+    const csv = await exportStampsCsv(actor, query);
+    return new Response(`\uFEFF${csv}`, {
+      headers: {
+        "content-type": "text/csv; charset=utf-8",
+        "content-disposition": `attachment; filename="stamps-${todayIso()}.csv"`,
+        "cache-control": "no-store",
+      },
+    });
+  }),
 });

@@ -1,9 +1,10 @@
 // GET /api/v1/stock-takes/{id} — progress and report of a count: missing, misplaced, unexpected
-import { apiRoute, parseOrThrow } from "@/lib/api/route";
+import { apiRoute, methods } from "@/lib/api/route";
 import { getStockTake } from "@/lib/data/stock-takes";
 import { stockTakeIdParamSchema } from "@/lib/validation/stamps";
 
-export const GET = apiRoute<{ id: string }>({ permission: "data:read" }, async ({ actor, params }) => {
-  const { id } = parseOrThrow(stockTakeIdParamSchema, params);
-  return { stockTake: await getStockTake(actor, id) };
+export const { GET, POST, PUT, PATCH, DELETE } = methods({
+  GET: apiRoute({ operation: "getStockTake", permission: "data:read", params: stockTakeIdParamSchema }, async ({ actor, params }) => ({
+    stockTake: await getStockTake(actor, params.id),
+  })),
 });

@@ -1,9 +1,11 @@
 // DELETE /api/v1/tokens/{id} — revoke one of my API tokens
-import { apiRoute, noContent, parseOrThrow } from "@/lib/api/route";
+import { apiRoute, methods, noContent } from "@/lib/api/route";
 import { revokeApiToken } from "@/lib/data/api-tokens";
-import { idParamSchema } from "@/lib/validation/users";
+import { idParamSchema } from "@/lib/validation/common";
 
-export const DELETE = apiRoute<{ id: string }>({ permission: "account:self" }, async ({ actor, params }) => {
-  await revokeApiToken(actor, parseOrThrow(idParamSchema, params).id);
-  return noContent();
+export const { GET, POST, PUT, PATCH, DELETE } = methods({
+  DELETE: apiRoute({ operation: "revokeMyToken", permission: "account:self", params: idParamSchema, answers: { status: 204 } }, async ({ actor, params }) => {
+    await revokeApiToken(actor, params.id);
+    return noContent();
+  }),
 });

@@ -1,20 +1,15 @@
 // GET/POST /api/v1/stamps/{code}/scans — list a stamp's scans; keep an uploaded file as a scan (keepers)
-import { apiRoute, created, parseOrThrow, readJson } from "@/lib/api/route";
-import { withScanErrors } from "@/lib/api/scan-route";
+import { apiRoute, created, methods } from "@/lib/api/route";
 import { completeScanUpload, listScans, scanLimits } from "@/lib/data/scans";
 import { completeScanSchema } from "@/lib/validation/scans";
 import { stampCodeParamSchema } from "@/lib/validation/stamps";
 
-type Params = { code: string };
-
-export const GET = apiRoute<Params>({ permission: "data:read" }, async ({ actor, params }) => {
-  const { code } = parseOrThrow(stampCodeParamSchema, params);
-  const { maxBytes, maxPixels } = scanLimits();
-  return { scans: await listScans(actor, code), limits: { maxBytes, maxPixels } };
-});
-
-export const POST = apiRoute<Params>({ permission: "stamps:write" }, async ({ actor, request, params, t }) => {
-  const { code } = parseOrThrow(stampCodeParamSchema, params);
-  const input = await readJson(request, completeScanSchema);
-  return withScanErrors(t, async () => created({ scan: await completeScanUpload(actor, code, input) }));
+export const { GET, POST, PUT, PATCH, DELETE } = methods({
+  GET: apiRoute({ operation: "listScans", permission: "data:read", params: stampCodeParamSchema }, async ({ actor, params }) => {
+    const { maxBytes, maxPixels } = scanLimits();
+    return { scans: await listScans(actor, params.code), limits: { maxBytes, maxPixels } };
+  }),
+  POST: apiRoute({ operation: "completeScanUpload", permission: "stamps:write", params: stampCodeParamSchema, body: completeScanSchema, answers: { status: 201 } }, async ({ actor, params, body }) =>
+    created({ scan: await completeScanUpload(actor, params.code, body) }),
+  ),
 });

@@ -1,9 +1,11 @@
 // POST /api/v1/users/{id}/reset-link — e-mail the user a one-time password reset link (admins)
-import { apiRoute, noContent, parseOrThrow } from "@/lib/api/route";
+import { apiRoute, methods, noContent } from "@/lib/api/route";
 import { sendPasswordResetFor } from "@/lib/data/users";
-import { idParamSchema } from "@/lib/validation/users";
+import { idParamSchema } from "@/lib/validation/common";
 
-export const POST = apiRoute<{ id: string }>({ permission: "users:manage" }, async ({ actor, params }) => {
-  await sendPasswordResetFor(actor, parseOrThrow(idParamSchema, params).id);
-  return noContent();
+export const { GET, POST, PUT, PATCH, DELETE } = methods({
+  POST: apiRoute({ operation: "sendPasswordReset", permission: "users:manage", params: idParamSchema, answers: { status: 204 } }, async ({ actor, params }) => {
+    await sendPasswordResetFor(actor, params.id);
+    return noContent();
+  }),
 });

@@ -1,18 +1,13 @@
 // GET/POST /api/v1/stamps/{code}/scans/{id}/coverage — measure coverage for a polarity and threshold; save it to the stamp (keepers)
-import { apiRoute, parseOrThrow, readJson } from "@/lib/api/route";
+import { apiRoute, methods } from "@/lib/api/route";
 import { previewCoverage, saveCoverage } from "@/lib/data/scans";
 import { coveragePreviewSchema, saveCoverageSchema, scanIdParamSchema } from "@/lib/validation/scans";
 
-type Params = { code: string; id: string };
-
-export const GET = apiRoute<Params>({ permission: "data:read" }, async ({ actor, request, params }) => {
-  const { code, id } = parseOrThrow(scanIdParamSchema, params);
-  const query = parseOrThrow(coveragePreviewSchema, Object.fromEntries(new URL(request.url).searchParams));
-  return { coverage: await previewCoverage(actor, code, id, query) };
-});
-
-export const POST = apiRoute<Params>({ permission: "stamps:write" }, async ({ actor, request, params }) => {
-  const { code, id } = parseOrThrow(scanIdParamSchema, params);
-  const input = await readJson(request, saveCoverageSchema);
-  return saveCoverage(actor, code, id, input);
+export const { GET, POST, PUT, PATCH, DELETE } = methods({
+  GET: apiRoute({ operation: "measureScanCoverage", permission: "data:read", params: scanIdParamSchema, query: coveragePreviewSchema }, async ({ actor, params, query }) => ({
+    coverage: await previewCoverage(actor, params.code, params.id, query),
+  })),
+  POST: apiRoute({ operation: "saveScanCoverage", permission: "stamps:write", params: scanIdParamSchema, body: saveCoverageSchema }, async ({ actor, params, body }) =>
+    saveCoverage(actor, params.code, params.id, body),
+  ),
 });

@@ -1,0 +1,78 @@
+// Every /api/v1 route file, for the API reference (openapi.json and the reference page).
+// tests/integration/openapi.test.ts fails when a route file is missing here.
+import type { RouteModule } from "@/lib/api/openapi";
+import * as checkouts from "./checkouts/route";
+import * as checkoutsReminders from "./checkouts/reminders/route";
+import * as layout from "./layout/route";
+import * as locations from "./locations/route";
+import * as locationsId from "./locations/[id]/route";
+import * as me from "./me/route";
+import * as openapi from "./openapi.json/route";
+import * as stamps from "./stamps/route";
+import * as stampsExport from "./stamps/export/route";
+import * as stampsImport from "./stamps/import/route";
+import * as stampsCode from "./stamps/[code]/route";
+import * as stampsCodeCheckout from "./stamps/[code]/checkout/route";
+import * as stampsCodeCondition from "./stamps/[code]/condition/route";
+import * as stampsCodeDamage from "./stamps/[code]/damage/route";
+import * as stampsCodeHistory from "./stamps/[code]/history/route";
+import * as stampsCodeReturn from "./stamps/[code]/return/route";
+import * as stampsCodeScans from "./stamps/[code]/scans/route";
+import * as stampsCodeScansUploads from "./stamps/[code]/scans/uploads/route";
+import * as stampsCodeScansId from "./stamps/[code]/scans/[id]/route";
+import * as stampsCodeScansIdCoverage from "./stamps/[code]/scans/[id]/coverage/route";
+import * as stampsCodeScansIdDownload from "./stamps/[code]/scans/[id]/download/route";
+import * as stampsCodeScansIdImage from "./stamps/[code]/scans/[id]/image/route";
+import * as stampsCodeScansIdOverlay from "./stamps/[code]/scans/[id]/overlay/route";
+import * as stampsCodeSimilar from "./stamps/[code]/similar/route";
+import * as stockTakes from "./stock-takes/route";
+import * as stockTakesId from "./stock-takes/[id]/route";
+import * as stockTakesIdEnd from "./stock-takes/[id]/end/route";
+import * as stockTakesIdRelocate from "./stock-takes/[id]/relocate/route";
+import * as stockTakesIdSightings from "./stock-takes/[id]/sightings/route";
+import * as stockTakesIdSightingsCode from "./stock-takes/[id]/sightings/[code]/route";
+import * as tokens from "./tokens/route";
+import * as tokensId from "./tokens/[id]/route";
+import * as users from "./users/route";
+import * as usersId from "./users/[id]/route";
+import * as usersIdInvitation from "./users/[id]/invitation/route";
+import * as usersIdResetLink from "./users/[id]/reset-link/route";
+
+export const routeModules: RouteModule[] = [
+  { path: "/api/v1/checkouts", handlers: checkouts },
+  { path: "/api/v1/checkouts/reminders", handlers: checkoutsReminders },
+  { path: "/api/v1/layout", handlers: layout },
+  { path: "/api/v1/locations", handlers: locations },
+  { path: "/api/v1/locations/{id}", handlers: locationsId },
+  { path: "/api/v1/me", handlers: me },
+  { path: "/api/v1/openapi.json", handlers: openapi },
+  { path: "/api/v1/stamps", handlers: stamps },
+  { path: "/api/v1/stamps/export", handlers: stampsExport },
+  { path: "/api/v1/stamps/import", handlers: stampsImport },
+  { path: "/api/v1/stamps/{code}", handlers: stampsCode },
+  { path: "/api/v1/stamps/{code}/checkout", handlers: stampsCodeCheckout },
+  { path: "/api/v1/stamps/{code}/condition", handlers: stampsCodeCondition },
+  { path: "/api/v1/stamps/{code}/damage", handlers: stampsCodeDamage },
+  { path: "/api/v1/stamps/{code}/history", handlers: stampsCodeHistory },
+  { path: "/api/v1/stamps/{code}/return", handlers: stampsCodeReturn },
+  { path: "/api/v1/stamps/{code}/scans", handlers: stampsCodeScans },
+  { path: "/api/v1/stamps/{code}/scans/uploads", handlers: stampsCodeScansUploads },
+  { path: "/api/v1/stamps/{code}/scans/{id}", handlers: stampsCodeScansId },
+  { path: "/api/v1/stamps/{code}/scans/{id}/coverage", handlers: stampsCodeScansIdCoverage },
+  { path: "/api/v1/stamps/{code}/scans/{id}/download", handlers: stampsCodeScansIdDownload },
+  { path: "/api/v1/stamps/{code}/scans/{id}/image", handlers: stampsCodeScansIdImage },
+  { path: "/api/v1/stamps/{code}/scans/{id}/overlay", handlers: stampsCodeScansIdOverlay },
+  { path: "/api/v1/stamps/{code}/similar", handlers: stampsCodeSimilar },
+  { path: "/api/v1/stock-takes", handlers: stockTakes },
+  { path: "/api/v1/stock-takes/{id}", handlers: stockTakesId },
+  { path: "/api/v1/stock-takes/{id}/end", handlers: stockTakesIdEnd },
+  { path: "/api/v1/stock-takes/{id}/relocate", handlers: stockTakesIdRelocate },
+  { path: "/api/v1/stock-takes/{id}/sightings", handlers: stockTakesIdSightings },
+  { path: "/api/v1/stock-takes/{id}/sightings/{code}", handlers: stockTakesIdSightingsCode },
+  { path: "/api/v1/tokens", handlers: tokens },
+  { path: "/api/v1/tokens/{id}", handlers: tokensId },
+  { path: "/api/v1/users", handlers: users },
+  { path: "/api/v1/users/{id}", handlers: usersId },
+  { path: "/api/v1/users/{id}/invitation", handlers: usersIdInvitation },
+  { path: "/api/v1/users/{id}/reset-link", handlers: usersIdResetLink },
+];

@@ -1,0 +1,84 @@
+import { ZodError, type z } from "zod";
+import { AppError, issueMessage, issuePath, statusOf, ValidationFailed, type FieldErrors, type FieldMessage, type MessageValues } from "@/lib/errors";
+import type { Translator } from "@/lib/i18n/translator";
+import { LayoutInputError } from "@/lib/layout/errors";
+import { ScanRejected } from "@/lib/scans/errors";
+
+/** The JSON error body every answer uses: `{ error: { code, message, fields?, …details } }`. */
+export interface ErrorBody {
+  error: { code: string; message: string; fields?: FieldErrors; [detail: string]: unknown };
+}
+
+export interface ErrorAnswer {
+  status: number;
+  body: ErrorBody;
+}
+
+/** Byte counts also as MB, so messages read "larger than 8 MB". */
+function withMegabytes(values: MessageValues): MessageValues {
+  const out: MessageValues = { ...values };
+  for (const [key, value] of Object.entries(values)) {
+    if (key.endsWith("Bytes") && typeof value === "number") out[key.replace(/Bytes$/, "Mb")] = Math.round((value / (1024 * 1024)) * 10) / 10;
+  }
+  return out;
+}
+
+/** Translates one catalogue key; an unknown key (a schema naming a message that does not exist) reads "Not valid". */
+function say(t: Translator, key: string, values: MessageValues): string {
+  return t.has(key) ? t(key, withMegabytes(values)) : t("validation.invalid");
+}
+
+/** Translated messages per field for zod issues: the one issue → message path of the app. */
+export function issueFields(issues: readonly z.core.$ZodIssue[], t: Translator): FieldErrors {
+  const fields: FieldErrors = {};
+  for (const issue of issues) {
+    const { key, values } = issueMessage(issue);
+    (fields[issuePath(issue)] ??= []).push(say(t, key, values));
+  }
+  return fields;
+}
+
+function appErrorFields(fields: Record<string, FieldMessage[]>, params: MessageValues, t: Translator): FieldErrors {
+  return Object.fromEntries(
+    Object.entries(fields).map(([field, messages]) => [field, messages.map((m) => (typeof m === "string" ? say(t, m, params) : say(t, m.key, m.values)))]),
+  );
+}
+
+/** Members an AppError adds to the body; per-row problems of a file are translated here too. */
+function details(error: AppError, t: Translator): Record<string, unknown> {
+  if (!error.details) return {};
+  const { rows, ...rest } = error.details as { rows?: { line: number; column: string | null; message: { key: string; values: MessageValues } }[] };
+  return { ...rest, ...(rows ? { rows: rows.map((r) => ({ line: r.line, column: r.column, message: say(t, r.message.key, r.message.values) })) } : {}) };
+}
+
+/**
+ * The one function that turns any error into its status and JSON body, in the caller's language.
+ * Route handlers (apiRoute), server actions (runForm) and file imports all answer through it;
+ * anything not raised on purpose is logged and answered as a 500 without details.
+ */
+export function errorAnswer(error: unknown, t: Translator): ErrorAnswer {
+  if (error instanceof ZodError) return errorAnswer(new ValidationFailed(error.issues), t);
+  if (error instanceof ValidationFailed) {
+    return { status: error.status, body: { error: { code: error.code, message: t(`errors.${error.code}`), fields: issueFields(error.issues, t) } } };
+  }
+  if (error instanceof LayoutInputError) {
+    const fields: FieldErrors = {};
+    for (const issue of error.issues) {
+      const values = Object.fromEntries(Object.entries(issue.params).map(([k, v]) => [k, typeof v === "boolean" ? String(v) : v]));
+      (fields[issue.field] ??= []).push(say(t, issue.messageKey, values));
+    }
+    return { status: statusOf("unprocessable"), body: { error: { code: "unprocessable", message: t("errors.unprocessable"), fields } } };
+  }
+  if (error instanceof ScanRejected) {
+    return { status: statusOf(error.code), body: { error: { code: error.code, message: say(t, `scans.rejected.${error.code}`, error.params) } } };
+  }
+  if (error instanceof AppError) {
+    const fields = error.fields ? appErrorFields(error.fields, error.params, t) : undefined;
+    return {
+      status: error.status,
+      body: { error: { code: error.code, message: say(t, `errors.${error.code}`, error.params), ...(fields ? { fields } : {}), ...details(error, t) } },
+    };
+  }
+  console.error(error);
+  return { status: 500, body: { error: { code: "internal", message: t("errors.internal") } } };
+}
