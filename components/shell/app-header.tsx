@@ -21,7 +21,7 @@ export async function AppHeader({ actor }: { actor: Actor }) {
             .filter((item) => can(actor.role, item.permission))
             .map((item) => (
               <NavLink key={item.href} href={item.href}>
-                {t(`nav.${item.labelKey}` as never)}
+                {t(`nav.${item.labelKey}`)}
               </NavLink>
             ))}
         </nav>

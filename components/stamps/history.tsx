@@ -1,6 +1,7 @@
 import { getFormatter, getTranslations } from "next-intl/server";
 import { cn } from "@/components/ui/cn";
 import type { StampEventDto } from "@/lib/contracts/stamps";
+import { damageKinds, stampConditions, stampFaces } from "@/lib/validation/stamps";
 import type { UnitSystem } from "@/lib/stamps/format";
 import { lengthText, massText } from "./measure";
 
@@ -19,19 +20,24 @@ const dots: Record<string, string> = {
 };
 
 const lengthFields = new Set(["widthMm", "heightMm", "stripDepthMm"]);
+/** Fields whose changes the history names; any other field shows its raw name. */
+const namedFields = ["code", "name", "widthMm", "heightMm", "stripDepthMm", "weightG", "face", "mirrored", "twinCode", "maker", "madeOn", "condition", "location", "coverageRatio", "outlinePath", "impressionsCount", "notes", "tags", "motifId"] as const;
+
+/** Narrows a stored value to one of a list, so its catalogue key is known to exist. */
+const oneOf = <T extends string>(list: readonly T[], value: unknown): value is T => list.includes(value as T);
 
 /** The stamp's story, newest first: who did what, when. */
 export async function StampHistory({ events, unitSystem }: { events: StampEventDto[]; unitSystem: UnitSystem }) {
   const t = await getTranslations();
   const format = await getFormatter();
   const none = t("stamps.history.none");
-  const condition = (c: string | null) => (c ? t(`stamps.conditions.${c}` as never) : none);
+  const condition = (c: string | null) => (oneOf(stampConditions, c) ? t(`stamps.conditions.${c}`) : (c ?? none));
   const value = (field: string, v: unknown): string => {
     if (v === null || v === undefined || v === "") return none;
     if (lengthFields.has(field) && typeof v === "number") return lengthText(v, unitSystem, format.number);
     if (field === "weightG" && typeof v === "number") return massText(v, unitSystem, format.number);
     if (field === "coverageRatio" && typeof v === "number") return format.number(v, { style: "percent", maximumFractionDigits: 1 });
-    if (field === "face") return t(`stamps.faces.${v}` as never);
+    if (field === "face" && oneOf(stampFaces, v)) return t(`stamps.faces.${v}`);
     if (typeof v === "boolean") return v ? t("stamps.yes") : t("stamps.no");
     if (Array.isArray(v)) return v.join(", ") || none;
     if (field === "outlinePath") return t("stamps.history.outline");
@@ -48,7 +54,7 @@ export async function StampHistory({ events, unitSystem }: { events: StampEventD
         const changes = (d.changes as { field: string; from: unknown; to: unknown }[] | undefined) ?? [];
         return {
           text: t("stamps.history.edited", { actor: e.actorName, count: changes.length }),
-          extra: changes.map((c) => t("stamps.history.change", { field: t(`stamps.fields.${c.field}` as never), from: value(c.field, c.from), to: value(c.field, c.to) })),
+          extra: changes.map((c) => t("stamps.history.change", { field: oneOf(namedFields, c.field) ? t(`stamps.fields.${c.field}`) : c.field, from: value(c.field, c.from), to: value(c.field, c.to) })),
         };
       }
       case "moved":
@@ -71,11 +77,11 @@ export async function StampHistory({ events, unitSystem }: { events: StampEventD
       case "repaired":
         return { text: t("stamps.history.repaired", { actor: e.actorName, to: condition(e.to) }) };
       case "damage_reported":
-        return { text: t("stamps.history.damageReported", { actor: e.actorName, kind: e.to ? t(`stamps.damageKinds.${e.to}` as never) : none }) };
+        return { text: t("stamps.history.damageReported", { actor: e.actorName, kind: oneOf(damageKinds, e.to) ? t(`stamps.damageKinds.${e.to}`) : (e.to ?? none) }) };
       case "twin_linked":
         return e.to ? { text: t("stamps.history.twinLinked", { actor: e.actorName, code: e.to }) } : { text: t("stamps.history.twinUnlinked", { actor: e.actorName, code: e.from ?? none }) };
       case "scanned":
-        return { text: t("stamps.history.scanned", { actor: e.actorName, kind: t(`scans.kindShort.${d.kind === "print" ? "print" : "face"}` as never) }) };
+        return { text: t("stamps.history.scanned", { actor: e.actorName, kind: t(d.kind === "print" ? "scans.kindShort.print" : "scans.kindShort.face") }) };
       case "seen_in_stock_take":
         return { text: t("stamps.history.seen", { actor: e.actorName, place: e.to ?? none }) };
       default:

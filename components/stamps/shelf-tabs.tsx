@@ -11,7 +11,7 @@ const tabs = [
   { href: "/stamps/locations", key: "stamps.tabs.locations" },
   { href: "/stamps/stock-takes", key: "stamps.tabs.stockTakes" },
   { href: "/stamps/import", key: "stamps.tabs.import", writeOnly: true },
-];
+] as const;
 
 /** The stamp shelf's own sub-navigation; hidden in print. */
 export function ShelfTabs({ canWrite }: { canWrite: boolean }) {
@@ -20,9 +20,9 @@ export function ShelfTabs({ canWrite }: { canWrite: boolean }) {
   return (
     <nav aria-label={t("stamps.tabs.label")} className="mb-6 flex flex-wrap gap-1 border-b border-stone-200 print:hidden">
       {tabs
-        .filter((tab) => canWrite || !tab.writeOnly)
+        .filter((tab) => canWrite || !("writeOnly" in tab))
         .map((tab) => {
-          const active = tab.exact ? pathname === tab.href || (pathname.startsWith("/stamps/") && !tabs.some((o) => o.href !== "/stamps" && pathname.startsWith(o.href))) : pathname.startsWith(tab.href);
+          const active = "exact" in tab ? pathname === tab.href || (pathname.startsWith("/stamps/") && !tabs.some((o) => o.href !== "/stamps" && pathname.startsWith(o.href))) : pathname.startsWith(tab.href);
           return (
             <Link
               key={tab.href}

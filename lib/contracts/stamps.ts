@@ -116,7 +116,7 @@ export interface StockTakeDto extends StockTakeSummary {
   seenExpected: number;
   missing: { code: string; name: string; recorded: StockTakePlace }[];
   misplaced: { code: string; name: string; recorded: StockTakePlace; seenAt: StockTakePlace }[];
-  unexpected: { code: string; name: string | null; reason: string; recorded: StockTakePlace; seenAt: StockTakePlace }[];
+  unexpected: { code: string; name: string | null; reason: "otherSite" | "noLocation" | "checkedOut" | "unknown" | "retired"; recorded: StockTakePlace; seenAt: StockTakePlace }[];
   checkedOut: { code: string; name: string }[];
   recent: { code: string; name: string | null; seenAt: StockTakePlace; at: string; result: "found" | "misplaced" | "unexpected" }[];
   relocatable: number;

@@ -25,7 +25,6 @@ import {
   type PixelRect,
   type ScanLimits,
   type ScanType,
-  type SizeComparison,
   type WaxPolarity,
 } from "@/lib/scans";
 import { deleteObjects, getObjectBytes, headObject, newObjectKey, objectStore, ObjectTooLarge, presignPut, putObject } from "@/lib/s3";

@@ -57,7 +57,7 @@ describe("unit conversions", () => {
     expect(ouncesToGrams(1)).toBe(28.349523125);
     expect(gramsToPounds(453.59237)).toBe(1);
     expect(gramsToOunces(28.349523125)).toBeCloseTo(1, 12);
-    // 1 kg ≈ 35.274 oz (from memory; the usual kitchen-scale figure).
+    // 1 kg = 1000 / 28.349 523 125 oz = 35.273 96… oz, from the exact avoirdupois ounce (NIST Handbook 44, Appendix C).
     expect(gramsToOunces(1000)).toBeCloseTo(35.274, 3);
   });
 });

@@ -33,10 +33,10 @@ export default async function StampShelfPage() {
       />
       <ul className="mb-4 flex flex-wrap gap-2 text-sm" aria-label={t("stamps.counts.label")}>
         {[
-          { key: "active", count: counts.active, href: "/stamps?condition=sound,worn,needs_repair,in_repair" },
-          { key: "out", count: counts.out, href: "/stamps/out" },
-          { key: "overdue", count: counts.overdue, href: "/stamps?overdue=true", warn: counts.overdue > 0 },
-          { key: "repair", count: counts.repair, href: "/stamps?condition=needs_repair,in_repair", warn: counts.repair > 0 },
+          { key: "active" as const, count: counts.active, href: "/stamps?condition=sound,worn,needs_repair,in_repair" },
+          { key: "out" as const, count: counts.out, href: "/stamps/out" },
+          { key: "overdue" as const, count: counts.overdue, href: "/stamps?overdue=true", warn: counts.overdue > 0 },
+          { key: "repair" as const, count: counts.repair, href: "/stamps?condition=needs_repair,in_repair", warn: counts.repair > 0 },
         ].map((c) => (
           <li key={c.key}>
             <Link href={c.href} className={c.warn ? "rounded-full bg-amber-100 px-3 py-1 text-amber-900 hover:underline" : "rounded-full bg-stone-200 px-3 py-1 text-stone-800 hover:underline"}>

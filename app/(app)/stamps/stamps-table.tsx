@@ -53,6 +53,8 @@ const filterKeys = ["q", "condition", "site", "location", "face", "out", "overdu
 
 // Column choice lives in the browser (per person and device), read without a hydration mismatch.
 const columnsKey = "capgrid.stamps.columns";
+/** The table's columns, each with its heading at stamps.columns.<id>. */
+type ColumnId = "code" | "name" | "size" | "face" | "condition" | "location" | "out" | "maker" | "madeOn" | "tags" | "impressions" | "updated";
 const columnListeners = new Set<() => void>();
 const columnsStore = {
   subscribe(listener: () => void) {
@@ -414,7 +416,7 @@ export function StampsTable({
                 .map((c) => (
                   <label key={c.id} className="flex items-center gap-2 text-sm">
                     <input type="checkbox" checked={c.getIsVisible()} onChange={c.getToggleVisibilityHandler()} />
-                    {t(`stamps.columns.${c.id}`)}
+                    {t(`stamps.columns.${c.id as ColumnId}`)}
                   </label>
                 ))}
             </fieldset>

@@ -38,7 +38,8 @@ describe("area of one impression against analytic values", () => {
   });
 
   it("circle of radius 100 from two arcs: πr² within the curve approximation's error", () => {
-    // Arcs become cubic Béziers (4 per circle, radial error ≤ 2.7e-4 r, outward — from memory) and are then
+    // Arcs become cubic Béziers (4 per circle, radial error ≤ 2.7e-4 r, outward — A. Riškus, Information
+    // Technology and Control 35(4), 2006) and are then
     // flattened to chords no farther than FLATTEN_TOLERANCE_MM from the curve (inward, area error ≤ 2·tol/r).
     const r = 100;
     const area = stampOnly("M200 100 A100 100 0 1 0 0 100 A100 100 0 1 0 200 100 Z").areaMm2;

@@ -50,8 +50,9 @@ describe("DCT and Hamming distance", () => {
   });
 });
 
-// A common practice for 64-bit DCT hashes: ≤ 10 differing bits is "the same picture", unrelated pictures
-// differ in about half their bits (≈ 32) — from memory.
+// For 64-bit DCT hashes, ≤ 10 differing bits as "the same picture" is common practice; unrelated pictures
+// differ in about half their bits: two independent hashes of fair bits are 32 apart on average (binomial,
+// n = 64, p = ½; standard deviation 4).
 describe("perceptual hashes of motif scans", () => {
   let original: Buffer;
   let hashes: MotifHashes;

@@ -8,6 +8,7 @@ import { Notice } from "@/components/ui/notice";
 import { initialFormState, type FormState } from "@/lib/actions/form-state";
 import { damageKinds } from "@/lib/validation/stamps";
 import { changeConditionAction, checkoutAction, deleteStampAction, reportDamageAction, returnAction } from "../actions";
+import type { StampConditionValue } from "@/lib/validation/stamps";
 
 const val = (state: FormState, name: string, fallback = "") => (state.status === "error" ? (state.values?.[name] ?? fallback) : fallback);
 
@@ -99,7 +100,7 @@ export function ReturnForm({ code, locations, currentLocationId }: { code: strin
   );
 }
 
-export function ConditionForm({ code, next }: { code: string; next: string[] }) {
+export function ConditionForm({ code, next }: { code: string; next: readonly StampConditionValue[] }) {
   const t = useTranslations();
   const [state, action, pending] = useActionState(changeConditionAction, initialFormState);
   return (

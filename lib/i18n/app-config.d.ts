@@ -1,0 +1,17 @@
+import type enApi from "./messages/en/api.json";
+import type enAuth from "./messages/en/auth.json";
+import type enEmails from "./messages/en/emails.json";
+import type enErrors from "./messages/en/errors.json";
+import type enLayout from "./messages/en/layout.json";
+import type enPeople from "./messages/en/people.json";
+import type enScans from "./messages/en/scans.json";
+import type enShell from "./messages/en/shell.json";
+import type enStamps from "./messages/en/stamps.json";
+
+// Message keys are typed from the English catalogue: a key that does not exist (also one built
+// from a template) fails `npm run typecheck`.
+declare module "next-intl" {
+  interface AppConfig {
+    Messages: typeof enApi & typeof enAuth & typeof enEmails & typeof enErrors & typeof enLayout & typeof enPeople & typeof enScans & typeof enShell & typeof enStamps;
+  }
+}
