@@ -123,7 +123,9 @@ export interface StockTakeDto extends StockTakeSummary {
   locations: { id: string; code: string }[];
 }
 
+/** A file that was (or, on a dry run, would be) imported whole. */
 export interface ImportResult {
+  ok: true;
   dryRun: boolean;
   rows: number;
   created: number;

@@ -139,7 +139,7 @@ export async function importStampsCsv(actor: Actor, text: string, options: { dry
   if (problems.length) throw importInvalid(problems);
 
   const created = ready.filter((r) => !existing.has(r.input.code)).length;
-  if (options.dryRun) return { dryRun: true, rows: ready.length, created, updated: ready.length - created };
+  if (options.dryRun) return { ok: true, dryRun: true, rows: ready.length, created, updated: ready.length - created };
 
   // Throwing inside the transaction rolls every stored row back.
   await db.transaction(async (tx) => {
@@ -174,5 +174,5 @@ export async function importStampsCsv(actor: Actor, text: string, options: { dry
     }
     if (problems.length) throw importInvalid(problems);
   });
-  return { dryRun: false, rows: ready.length, created, updated: ready.length - created };
+  return { ok: true, dryRun: false, rows: ready.length, created, updated: ready.length - created };
 }
