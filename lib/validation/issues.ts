@@ -4,10 +4,13 @@ import type { FieldErrors } from "@/lib/errors";
 type Translate = (key: string, values?: Record<string, string | number>) => string;
 type HasKey = (key: string) => boolean;
 
+/** Namespaces whose keys a schema may name as an issue's message: the shared one, and pure domains' own (lib/wax). */
+const KEYED_MESSAGE = /^(validation|wax)\.[A-Za-z0-9.]+$/;
+
 /** The catalogue key and values for one zod issue; schemas may name a key as their message. */
 export function issueMessage(issue: z.core.$ZodIssue): { key: string; values: Record<string, string | number> } {
   const byCode = messageForCode(issue);
-  if (!issue.message.startsWith("validation.")) return byCode;
+  if (!KEYED_MESSAGE.test(issue.message)) return byCode;
   // Custom checks pass their numbers (e.g. { min }) as params for the message.
   const params = issue.code === "custom" ? (issue.params ?? {}) : {};
   const extra = Object.fromEntries(Object.entries(params).filter(([, v]) => typeof v === "number" || typeof v === "string"));

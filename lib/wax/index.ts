@@ -1,0 +1,10 @@
+/**
+ * transport; imports only zod and lib/units. Every input has its zod schema here (messages are catalogue keys),
+ * and refusals are WaxInputError (field, code = catalogue key, params).
+ */
+export * from "./errors";
+export * from "./limits";
+export * from "./materials";
+export * from "./mix";
+export * from "./temperature";
+export * from "./recipe";
