@@ -1,5 +1,6 @@
 /**
  * The wax estimator, pure: materials, recipes (density, melting range, temperature rules), estimates per run,
+ * calibration of the application rate from recorded uses, and the purchase list. No storage, screen or
  * transport; imports only zod and lib/units. Every input has its zod schema here (messages are catalogue keys),
  * and refusals are WaxInputError (field, code = catalogue key, params).
  */
@@ -11,3 +12,5 @@ export * from "./temperature";
 export * from "./recipe";
 export * from "./estimate";
 export * from "./run";
+export * from "./calibration";
+export * from "./purchase";
