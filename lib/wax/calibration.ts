@@ -9,36 +9,41 @@ const grams = z.number(keyed).min(0, keyed).max(USE_MAX_G, keyed);
 /**
  * A wax use as recorded: what one waxing used, for a recipe (and a cloth when known). Grams either directly or
  * from the pot weighed before and after (plus any wax added in between). Refuses a pot that gained weight.
+ * Absent: cloth unknown, one pass, nothing added. No defaults: an update takes z.object(waxUseShape).partial()
+ * and checks the merged record with waxUseSchema again.
  */
-export const waxUseSchema = z
-  .object(
-    {
-      recipeId: ref,
-      clothId: ref.nullable().default(null),
-      waxedAreaPerMetreM2: positive(AREA_PER_METRE_MAX_M2),
-      metres: positive(RUN_MAX_METRES),
-      passes: z.number(keyed).int(keyed).min(1, keyed).max(PASSES_MAX, keyed).default(1),
-      gramsUsed: grams.optional(),
-      potBeforeG: grams.optional(),
-      potAfterG: grams.optional(),
-      potAddedG: grams.default(0),
-    },
-    keyed,
-  )
-  .superRefine((u, ctx) => {
-    const weighed = u.potBeforeG !== undefined || u.potAfterG !== undefined;
-    if (u.gramsUsed !== undefined && weighed) {
-      ctx.addIssue({ code: "custom", path: ["gramsUsed"], message: "wax.gramsOrPot" });
-    } else if (u.gramsUsed === undefined && !weighed) {
-      ctx.addIssue({ code: "custom", path: ["gramsUsed"], message: "validation.required" });
-    } else if (weighed) {
-      if (u.potBeforeG === undefined) ctx.addIssue({ code: "custom", path: ["potBeforeG"], message: "validation.required" });
-      if (u.potAfterG === undefined) ctx.addIssue({ code: "custom", path: ["potAfterG"], message: "validation.required" });
-      if (u.potBeforeG !== undefined && u.potAfterG !== undefined && u.potAfterG > u.potBeforeG + u.potAddedG) {
-        ctx.addIssue({ code: "custom", path: ["potAfterG"], message: "wax.potGained", params: { beforeG: u.potBeforeG } });
-      }
+export const waxUseShape = {
+  recipeId: ref,
+  clothId: ref.nullable().optional(),
+  waxedAreaPerMetreM2: positive(AREA_PER_METRE_MAX_M2),
+  metres: positive(RUN_MAX_METRES),
+  passes: z.number(keyed).int(keyed).min(1, keyed).max(PASSES_MAX, keyed).optional(),
+  gramsUsed: grams.optional(),
+  potBeforeG: grams.optional(),
+  potAfterG: grams.optional(),
+  potAddedG: grams.optional(),
+};
+
+/** Cross-field checks of a wax use: grams or pot weights (not both), both weights, a pot that did not gain. */
+export function checkWaxUse(
+  u: { gramsUsed?: number; potBeforeG?: number; potAfterG?: number; potAddedG?: number },
+  ctx: z.RefinementCtx,
+): void {
+  const weighed = u.potBeforeG !== undefined || u.potAfterG !== undefined;
+  if (u.gramsUsed !== undefined && weighed) {
+    ctx.addIssue({ code: "custom", path: ["gramsUsed"], message: "wax.gramsOrPot" });
+  } else if (u.gramsUsed === undefined && !weighed) {
+    ctx.addIssue({ code: "custom", path: ["gramsUsed"], message: "validation.required" });
+  } else if (weighed) {
+    if (u.potBeforeG === undefined) ctx.addIssue({ code: "custom", path: ["potBeforeG"], message: "validation.required" });
+    if (u.potAfterG === undefined) ctx.addIssue({ code: "custom", path: ["potAfterG"], message: "validation.required" });
+    if (u.potBeforeG !== undefined && u.potAfterG !== undefined && u.potAfterG > u.potBeforeG + (u.potAddedG ?? 0)) {
+      ctx.addIssue({ code: "custom", path: ["potAfterG"], message: "wax.potGained", params: { beforeG: u.potBeforeG } });
     }
-  });
+  }
+}
+
+export const waxUseSchema = z.object(waxUseShape, keyed).superRefine(checkWaxUse);
 
 export type WaxUseInput = z.input<typeof waxUseSchema>;
 

@@ -146,7 +146,7 @@ export function estimateComponents(
     material: c.materialId,
     pct: c.pct,
     densityGPerCm3: c.material.densityGPerCm3,
-    pricePerKg: c.material.pricePerKg,
+    pricePerKg: c.material.pricePerKg ?? null,
   }));
 }
 

@@ -15,38 +15,41 @@ import {
 
 const sourceText = z.string(keyed).trim().max(SOURCE_MAX_CHARS, keyed);
 
-/** A material's figures, each editable with its source text. Density g/cm³ (solid), temperatures °C, price per kg. */
-export const materialSchema = z
+/**
+ * A material's figures, each editable with its source text. Density g/cm³ (solid), temperatures °C, price per kg.
+ * No defaults, so an update schema derived with .partial() changes only what it names (absent = null).
+ */
+const meltingRangeSchema = z
   .object(
     {
-      id: z.string(keyed).trim().min(1, keyed).max(MATERIAL_REF_MAX_CHARS, keyed),
-      name: z.string(keyed).trim().min(1, keyed).max(NAME_MAX_CHARS, keyed),
-      densityGPerCm3: z.number(keyed).min(DENSITY_MIN_G_PER_CM3, keyed).max(DENSITY_MAX_G_PER_CM3, keyed),
-      meltingRangeC: z.object(
-        {
-          fromC: z.number(keyed).min(MELT_MIN_C, keyed).max(MELT_MAX_C, keyed),
-          toC: z.number(keyed).min(MELT_MIN_C, keyed).max(MELT_MAX_C, keyed),
-        },
-        keyed,
-      ),
-      /** null: not known; recipes using the material cannot be checked against the flash-point rule. */
-      flashPointC: z.number(keyed).min(FLASH_POINT_MIN_C, keyed).max(FLASH_POINT_MAX_C, keyed).nullable(),
-      /** Above this the material discolours (beeswax about 85 °C); null when no figure is known. */
-      discoloursAboveC: z.number(keyed).min(MELT_MIN_C, keyed).max(MELT_MAX_C, keyed).nullable().default(null),
-      /** Workshop's currency per kg; a setting with no default source. */
-      pricePerKg: z.number(keyed).min(0, keyed).max(PRICE_MAX_PER_KG, keyed).nullable().default(null),
-      sources: z.object(
-        { density: sourceText, melting: sourceText, flashPoint: sourceText, price: sourceText.default("") },
-        keyed,
-      ),
+      fromC: z.number(keyed).min(MELT_MIN_C, keyed).max(MELT_MAX_C, keyed),
+      toC: z.number(keyed).min(MELT_MIN_C, keyed).max(MELT_MAX_C, keyed),
     },
     keyed,
   )
-  .superRefine((m, ctx) => {
-    if (m.meltingRangeC.fromC > m.meltingRangeC.toC) {
-      ctx.addIssue({ code: "custom", path: ["meltingRangeC", "toC"], message: "validation.rangeOrder" });
-    }
+  .superRefine((r, ctx) => {
+    if (r.fromC > r.toC) ctx.addIssue({ code: "custom", path: ["toC"], message: "validation.rangeOrder" });
   });
+
+export const materialSchema = z.object(
+  {
+    id: z.string(keyed).trim().min(1, keyed).max(MATERIAL_REF_MAX_CHARS, keyed),
+    name: z.string(keyed).trim().min(1, keyed).max(NAME_MAX_CHARS, keyed),
+    densityGPerCm3: z.number(keyed).min(DENSITY_MIN_G_PER_CM3, keyed).max(DENSITY_MAX_G_PER_CM3, keyed),
+    meltingRangeC: meltingRangeSchema,
+    /** null: not known; recipes using the material cannot be checked against the flash-point rule. */
+    flashPointC: z.number(keyed).min(FLASH_POINT_MIN_C, keyed).max(FLASH_POINT_MAX_C, keyed).nullable(),
+    /** Above this the material discolours (beeswax about 85 °C); null or absent when no figure is known. */
+    discoloursAboveC: z.number(keyed).min(MELT_MIN_C, keyed).max(MELT_MAX_C, keyed).nullable().optional(),
+    /** Workshop's currency per kg; a setting with no default source. */
+    pricePerKg: z.number(keyed).min(0, keyed).max(PRICE_MAX_PER_KG, keyed).nullable().optional(),
+    sources: z.object(
+      { density: sourceText, melting: sourceText, flashPoint: sourceText, price: sourceText.optional() },
+      keyed,
+    ),
+  },
+  keyed,
+);
 
 export type WaxMaterial = z.output<typeof materialSchema>;
 export type WaxMaterialInput = z.input<typeof materialSchema>;

@@ -21,7 +21,7 @@ export const workingRangeSchema = z.object({ minC: tempC, maxC: tempC }, keyed).
 /** Components by mass %: each in (0, 100], no material twice, 100 % in all. */
 export const recipeComponentsSchema = mixSchema(componentShape);
 
-/** A recipe as people enter it; the API's create schema extends this one, its update schema derives from it. */
+/** A recipe as people enter it; the API's create schema extends it, its update schema derives from it (no defaults). */
 export const recipeSchema = z.object(
   {
     name: z.string(keyed).trim().min(1, keyed).max(NAME_MAX_CHARS, keyed),
@@ -29,7 +29,7 @@ export const recipeSchema = z.object(
     use: z.enum(RECIPE_USES, keyed),
     components: recipeComponentsSchema,
     workingRangeC: workingRangeSchema,
-    notes: z.string(keyed).trim().max(NOTES_MAX_CHARS, keyed).default(""),
+    notes: z.string(keyed).trim().max(NOTES_MAX_CHARS, keyed).optional(),
   },
   keyed,
 );

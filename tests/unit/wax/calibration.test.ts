@@ -144,7 +144,7 @@ describe("calibrateRates per recipe and cloth", () => {
 describe("a recorded wax use", () => {
   it("counts area × metres × passes and grams from the pot weighed before and after (plus wax added)", () => {
     const use = parseWax(waxUseSchema, { recipeId: "r-dry", waxedAreaPerMetreM2: 0.8, metres: 25, passes: 2, potBeforeG: 5000, potAddedG: 500, potAfterG: 3200 });
-    expect(use.clothId).toBeNull();
+    expect(use.clothId).toBeUndefined();
     expect(useAreaM2(use)).toBeCloseTo(40, 12);
     expect(useGrams(use)).toBe(2300);
     expect(useGrams({ ...use, gramsUsed: 1234 })).toBe(1234);

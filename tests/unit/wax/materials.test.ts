@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { DEFAULT_MATERIALS, materialSchema, resolveMaterial } from "@/lib/wax";
+import { DEFAULT_MATERIALS, materialSchema, recipeSchema, resolveMaterial } from "@/lib/wax";
 
 const byId = (id: string) => {
   const m = DEFAULT_MATERIALS.find((x) => x.id === id);
@@ -77,6 +77,13 @@ describe("default materials", () => {
     const messages = bad.error?.issues.map((i) => [i.path.join("."), i.message]);
     expect(messages).toContainEqual(["meltingRangeC.toC", "validation.rangeOrder"]);
     expect(messages).toContainEqual(["pricePerKg", "validation.tooSmall"]);
+  });
+});
+
+describe("schemas without defaults", () => {
+  it("let an update derived with .partial() change only what it names", () => {
+    expect(materialSchema.partial().parse({ flashPointC: 190 })).toEqual({ flashPointC: 190 });
+    expect(recipeSchema.partial().parse({ name: "Rainy" })).toEqual({ name: "Rainy" });
   });
 });
 

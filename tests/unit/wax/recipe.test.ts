@@ -86,7 +86,7 @@ describe("a recipe's mix", () => {
       ],
     });
     expect(recipe.components).toHaveLength(3);
-    expect(recipe.notes).toBe("");
+    expect(recipe.notes).toBeUndefined();
     expect(parseRecipe({ ...dryMix, components: [{ material: "beeswax", pct: 60.005 }, { material: "paraffin", pct: 40 }] }).components).toHaveLength(2);
   });
 
