@@ -43,6 +43,7 @@ export function checkWaxUse(
   }
 }
 
+/** A wax use to record: the shape plus its cross-field checks. */
 export const waxUseSchema = z.object(waxUseShape, keyed).superRefine(checkWaxUse);
 
 export type WaxUseInput = z.input<typeof waxUseSchema>;

@@ -15,10 +15,6 @@ import {
 
 const sourceText = z.string(keyed).trim().max(SOURCE_MAX_CHARS, keyed);
 
-/**
- * A material's figures, each editable with its source text. Density g/cm³ (solid), temperatures °C, price per kg.
- * No defaults, so an update schema derived with .partial() changes only what it names (absent = null).
- */
 const meltingRangeSchema = z
   .object(
     {
@@ -31,6 +27,10 @@ const meltingRangeSchema = z
     if (r.fromC > r.toC) ctx.addIssue({ code: "custom", path: ["toC"], message: "validation.rangeOrder" });
   });
 
+/**
+ * A material's figures, each editable with its source text. Density g/cm³ (solid), temperatures °C, price per kg.
+ * No defaults, so an update schema derived with .partial() changes only what it names (absent = null).
+ */
 export const materialSchema = z.object(
   {
     id: z.string(keyed).trim().min(1, keyed).max(MATERIAL_REF_MAX_CHARS, keyed),
@@ -54,6 +54,7 @@ export const materialSchema = z.object(
 export type WaxMaterial = z.output<typeof materialSchema>;
 export type WaxMaterialInput = z.input<typeof materialSchema>;
 
+const PRICE_SOURCE = "a workshop setting; no default source";
 const FROM_MEMORY = "from memory; no figure in our sources";
 const NO_FLASH = "not in our sources: enter the figure from the supplier's safety data sheet";
 
@@ -74,7 +75,7 @@ export const DEFAULT_MATERIALS: readonly WaxMaterial[] = [
       density: "0.958–0.970 g/cm³ at 15 °C, encyclopedic entries; 0.96 taken",
       melting: "62–64 °C, encyclopedic entries; beekeeping references",
       flashPoint: "204 °C, encyclopedic entries (other sources 254–274 °C; the lowest taken)",
-      price: "",
+      price: PRICE_SOURCE,
     },
   },
   {
@@ -89,7 +90,7 @@ export const DEFAULT_MATERIALS: readonly WaxMaterial[] = [
       density: "about 0.90 g/cm³ solid, encyclopedic entries citing GESTIS (SDS specific gravity 0.92)",
       melting: "about 46–68 °C, encyclopedic entries citing GESTIS",
       flashPoint: "about 200–240 °C, GESTIS via encyclopedic entries (one SDS: 220 °C closed cup; the lowest taken)",
-      price: "",
+      price: PRICE_SOURCE,
     },
   },
   {
@@ -104,7 +105,7 @@ export const DEFAULT_MATERIALS: readonly WaxMaterial[] = [
       density: `about 0.92 g/cm³, ${FROM_MEMORY}`,
       melting: "about 60–93 °C (sources differ), ASTM D127 typical ranges; trade sources",
       flashPoint: NO_FLASH,
-      price: "",
+      price: PRICE_SOURCE,
     },
   },
   {
@@ -119,7 +120,7 @@ export const DEFAULT_MATERIALS: readonly WaxMaterial[] = [
       density: `about 1.07 g/cm³, ${FROM_MEMORY}`,
       melting: "about 80–82 °C, Indonesian batik-wax sources",
       flashPoint: NO_FLASH,
-      price: "",
+      price: PRICE_SOURCE,
     },
   },
   {
@@ -134,7 +135,7 @@ export const DEFAULT_MATERIALS: readonly WaxMaterial[] = [
       density: `about 1.04 g/cm³, ${FROM_MEMORY}`,
       melting: "about 82–85 °C, Indonesian batik-wax sources",
       flashPoint: NO_FLASH,
-      price: "",
+      price: PRICE_SOURCE,
     },
   },
   {
@@ -149,7 +150,7 @@ export const DEFAULT_MATERIALS: readonly WaxMaterial[] = [
       density: `no published figure in our sources; about 0.90 g/cm³ for tallow, from memory`,
       melting: `no published figure in our sources; about 35–50 °C for tallow, from memory`,
       flashPoint: `no published figure in our sources; ${NO_FLASH}`,
-      price: "",
+      price: PRICE_SOURCE,
     },
   },
   {
@@ -165,7 +166,7 @@ export const DEFAULT_MATERIALS: readonly WaxMaterial[] = [
         "no published figure in our sources; derived: 0.935 g/cm³ is a 60/40 beeswax/paraffin mix (common practice), 1 / (0.6/0.96 + 0.4/0.90)",
       melting: "no published figure in our sources; derived: the span of paraffin (46–68 °C) and beeswax (62–64 °C)",
       flashPoint: `no published figure in our sources; it depends on what was reclaimed: ${NO_FLASH}`,
-      price: "",
+      price: PRICE_SOURCE,
     },
   },
 ];

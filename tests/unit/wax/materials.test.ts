@@ -55,6 +55,7 @@ describe("default materials", () => {
     for (const m of DEFAULT_MATERIALS) {
       for (const key of ["density", "melting", "flashPoint"] as const) expect(m.sources[key].length, `${m.id}.${key}`).toBeGreaterThan(10);
       expect(m.pricePerKg, m.id).toBeNull();
+      expect(m.sources.price, m.id).toBe("a workshop setting; no default source");
     }
     for (const id of ["microcrystalline", "rosin", "damar"]) expect(byId(id).sources.density, id).toMatch(/from memory/);
     for (const id of ["animal-fat", "reclaimed"]) {
