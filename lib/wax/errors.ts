@@ -95,9 +95,15 @@ function paramsOf(issue: z.core.$ZodIssue): WaxParams {
   return params;
 }
 
-/** Zod issues → WaxIssues (the issue's message is its key; see `keyed`). */
+const CATALOGUE_KEY = /^(validation|wax)\.[A-Za-z0-9.]+$/;
+
+/** Zod issues → WaxIssues (the issue's message is its key, see `keyed`; any other message counts as invalid). */
 export function toWaxIssues(issues: readonly z.core.$ZodIssue[]): WaxIssue[] {
-  return issues.map((issue) => ({ field: issue.path.map(String).join("."), code: issue.message, params: paramsOf(issue) }));
+  return issues.map((issue) => ({
+    field: issue.path.map(String).join("."),
+    code: CATALOGUE_KEY.test(issue.message) ? issue.message : "validation.invalid",
+    params: paramsOf(issue),
+  }));
 }
 
 /** Parses with a lib/wax schema; any problem becomes one WaxInputError listing every field. */

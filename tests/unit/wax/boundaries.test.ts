@@ -3,7 +3,8 @@ import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { translator } from "@/lib/i18n/translator";
 import { translateIssues } from "@/lib/validation/issues";
-import { WaxInputError, checkTemperature, estimateWax, recipeSchema, DEFAULT_MATERIALS } from "@/lib/wax";
+import { z } from "zod";
+import { DEFAULT_MATERIALS, WaxInputError, checkTemperature, estimateWax, keyed, recipeSchema, toWaxIssues } from "@/lib/wax";
 
 const t = translator("en");
 const sources = readdirSync("lib/wax")
@@ -56,5 +57,15 @@ describe("wax messages", () => {
       if (!(e instanceof WaxInputError)) throw e;
       expect(t(e.code, e.params as Record<string, number>)).toBe("The shares add up to 99.5 %; they must add up to 100 %.");
     }
+  });
+});
+
+describe("toWaxIssues", () => {
+  it("keeps catalogue keys and turns any other message into validation.invalid", () => {
+    const parsed = z.object({ a: z.number(keyed), b: z.string().refine(() => false, "not a key") }).safeParse({ a: "x", b: "y" });
+    expect(toWaxIssues(parsed.error!.issues)).toEqual([
+      { field: "a", code: "validation.invalidType", params: { expected: "number" } },
+      { field: "b", code: "validation.invalid", params: {} },
+    ]);
   });
 });
