@@ -3,6 +3,7 @@ import { AppError, issueMessage, issuePath, statusOf, ValidationFailed, type Fie
 import type { Translator } from "@/lib/i18n/translator";
 import { LayoutInputError } from "@/lib/layout/errors";
 import { ScanRejected } from "@/lib/scans/errors";
+import { WaxInputError } from "@/lib/wax/errors";
 
 /** The JSON error body every answer uses: `{ error: { code, message, fields?, …details } }`. */
 export interface ErrorBody {
@@ -61,11 +62,13 @@ export function errorAnswer(error: unknown, t: Translator): ErrorAnswer {
   if (error instanceof ValidationFailed) {
     return { status: error.status, body: { error: { code: error.code, message: t(`errors.${error.code}`), fields: issueFields(error.issues, t) } } };
   }
-  if (error instanceof LayoutInputError) {
+  // The engines refuse input they cannot compute with: 422, one message per field.
+  if (error instanceof LayoutInputError || error instanceof WaxInputError) {
+    const issues = error instanceof LayoutInputError ? error.issues.map((i) => ({ field: i.field, key: i.messageKey, params: i.params })) : error.issues.map((i) => ({ field: i.field, key: i.code, params: i.params }));
     const fields: FieldErrors = {};
-    for (const issue of error.issues) {
+    for (const issue of issues) {
       const values = Object.fromEntries(Object.entries(issue.params).map(([k, v]) => [k, typeof v === "boolean" ? String(v) : v]));
-      (fields[issue.field] ??= []).push(say(t, issue.messageKey, values));
+      (fields[issue.field || "_form"] ??= []).push(say(t, issue.key, values));
     }
     return { status: statusOf("unprocessable"), body: { error: { code: "unprocessable", message: t("errors.unprocessable"), fields } } };
   }

@@ -171,10 +171,13 @@ export function issueValues(issue: RawIssue): MessageValues {
   return values;
 }
 
+/** A message that is a catalogue key ("validation.stampSide", "wax.mixNot100"), not zod's own prose. */
+const CATALOGUE_KEY = /^[a-z][A-Za-z]*(\.[A-Za-z0-9]+)+$/;
+
 /** Catalogue key and values for one zod issue: the schema's own key when it names one, else the key for its code. */
 export function issueMessage(issue: RawIssue): MessageRef {
   const message = "message" in issue ? issue.message : undefined;
-  const key = message?.startsWith("validation.") || message?.startsWith("layout.") ? message : issueKey(issue);
+  const key = message && CATALOGUE_KEY.test(message) ? message : issueKey(issue);
   return { key, values: issueValues(issue) };
 }
 

@@ -1,7 +1,8 @@
 /**
  * Unit conversions for display (values are stored in mm and g). The factors are exact by definition
  * (NIST SP 811, Appendix B; NIST Handbook 44, Appendix C): 1 in = 25.4 mm, 1 yd = 0.9144 m,
- * 1 lb (avoirdupois) = 453.592 37 g, 1 oz = 1/16 lb; °F = °C × 9/5 + 32.
+ * 1 lb (avoirdupois) = 453.592 37 g, 1 oz = 1/16 lb; °F = °C × 9/5 + 32; a temperature interval of
+ * 1 °F = 5/9 °C (no offset: margins and spreads convert without the 32).
  * Lengths are scaled through integer ratios (254/10, 9144/10) so that decimal results such as
  * 17.5 yd = 16.002 m come out as the nearest double to the exact value.
  */
@@ -52,6 +53,26 @@ export function celsiusToFahrenheit(celsius: number): number {
 /** °F → °C: (°F − 32) × 5/9. */
 export function fahrenheitToCelsius(fahrenheit: number): number {
   return ((fahrenheit - 32) * 5) / 9;
+}
+
+/** Temperature interval °C → °F: Δ°C × 9/5 (a difference, so no 32 offset). */
+export function celsiusIntervalToFahrenheit(celsius: number): number {
+  return (celsius * 9) / 5;
+}
+
+/** Temperature interval °F → °C: Δ°F × 5/9 (a difference, so no 32 offset). */
+export function fahrenheitIntervalToCelsius(fahrenheit: number): number {
+  return (fahrenheit * 5) / 9;
+}
+
+/** Kilograms → avoirdupois pounds: kg × 1000 / 453.592 37. */
+export function kilogramsToPounds(kilograms: number): number {
+  return (kilograms * 1000) / G_PER_POUND;
+}
+
+/** Avoirdupois pounds → kilograms: lb × 0.453 592 37 (exact). */
+export function poundsToKilograms(pounds: number): number {
+  return (pounds * G_PER_POUND) / 1000;
 }
 
 /** Grams → avoirdupois ounces: g / 28.349 523 125. */

@@ -8,11 +8,12 @@ import enPeople from "./messages/en/people.json";
 import enScans from "./messages/en/scans.json";
 import enShell from "./messages/en/shell.json";
 import enStamps from "./messages/en/stamps.json";
+import enWax from "./messages/en/wax.json";
 
 // One file per area, each holding whole top-level namespaces, so areas can grow without
 // touching each other's files. tests/unit/catalogue.test.ts checks no namespace is defined twice.
 export const catalogueFiles = {
-  en: [enShell, enAuth, enPeople, enErrors, enEmails, enLayout, enStamps, enScans, enApi],
+  en: [enShell, enAuth, enPeople, enErrors, enEmails, enLayout, enStamps, enScans, enApi, enWax],
 } satisfies Record<Locale, object[]>;
 
 const merge = (files: object[]) => Object.assign({}, ...files) as Record<string, unknown>;

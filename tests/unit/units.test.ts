@@ -4,16 +4,20 @@ import {
   G_PER_POUND,
   MM_PER_INCH,
   M_PER_YARD,
+  celsiusIntervalToFahrenheit,
   celsiusToFahrenheit,
+  fahrenheitIntervalToCelsius,
   fahrenheitToCelsius,
   gramsToOunces,
   gramsToPounds,
   inchesToMm,
+  kilogramsToPounds,
   metresToYards,
   mmToInches,
   mmToYards,
   ouncesToGrams,
   poundsToGrams,
+  poundsToKilograms,
   yardsToMetres,
   yardsToMm,
 } from "@/lib/units";
@@ -59,5 +63,22 @@ describe("unit conversions", () => {
     expect(gramsToOunces(28.349523125)).toBeCloseTo(1, 12);
     // 1 kg = 1000 / 28.349 523 125 oz = 35.273 96… oz, from the exact avoirdupois ounce (NIST Handbook 44, Appendix C).
     expect(gramsToOunces(1000)).toBeCloseTo(35.274, 3);
+  });
+
+  it("converts temperature intervals by 1 °F = 5/9 K = 5/9 °C, without the 32 offset (NIST SP 811, Appendix B: degree Fahrenheit as a temperature interval = 5/9 K)", () => {
+    expect(celsiusIntervalToFahrenheit(50)).toBe(90);
+    expect(celsiusIntervalToFahrenheit(1)).toBe(1.8);
+    expect(fahrenheitIntervalToCelsius(90)).toBe(50);
+    expect(fahrenheitIntervalToCelsius(1)).toBeCloseTo(0.5555556, 7);
+    // An interval is the difference of two readings: 212 °F − 122 °F = 90 °F = 100 °C − 50 °C.
+    expect(celsiusIntervalToFahrenheit(100 - 50)).toBe(celsiusToFahrenheit(100) - celsiusToFahrenheit(50));
+  });
+
+  it("converts kilograms and pounds with 1 lb = 0.45359237 kg (NIST Handbook 44 App. C)", () => {
+    expect(poundsToKilograms(1)).toBe(0.45359237);
+    expect(poundsToKilograms(100)).toBeCloseTo(45.359237, 12);
+    expect(kilogramsToPounds(0.45359237)).toBe(1);
+    // 1 kg ≈ 2.20462 lb (from memory; the usual conversion-table figure).
+    expect(kilogramsToPounds(1)).toBeCloseTo(2.20462, 5);
   });
 });
