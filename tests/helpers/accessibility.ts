@@ -37,7 +37,9 @@ interface Finding {
 const findings: Finding[] = [];
 const seen = new Set<string>();
 const checkErrors: string[] = [];
+/** Contexts of the running test; at its end they are checked a last time and then left alone. */
 const openContexts = new Set<BrowserContext>();
+const retired = new WeakSet<BrowserContext>();
 const queues = new WeakMap<Page, Promise<void>>();
 const inFlight = new WeakMap<Page, Set<Request>>();
 
@@ -104,7 +106,7 @@ async function axeRun(page: Page): Promise<{ url: string; violations: Result[] }
 }
 
 async function runAxe(page: Page, when: string) {
-  if (page.isClosed() || !/^https?:/.test(page.url())) return;
+  if (page.isClosed() || retired.has(page.context()) || !/^https?:/.test(page.url())) return;
   try {
     await settle(page);
     const first = await axeRun(page);
@@ -182,9 +184,17 @@ export function watchAccessibility(context: BrowserContext): BrowserContext {
   return context;
 }
 
-/** Checks the pages still open, then throws a readable report of everything found since the last call. */
+/**
+ * Checks the pages still open, then throws a readable report of everything found since the last call. Contexts
+ * left open (a test that failed half-way) are not checked again, so they cannot fail the tests after it.
+ */
 export async function finishAccessibilityChecks(): Promise<void> {
-  await Promise.all([...openContexts].flatMap((c) => c.pages().map((p) => checkAccessibility(p, "at the end"))));
+  const contexts = [...openContexts];
+  await Promise.all(contexts.flatMap((c) => c.pages().map((p) => checkAccessibility(p, "at the end"))));
+  for (const c of contexts) {
+    retired.add(c);
+    openContexts.delete(c);
+  }
   const found = findings.splice(0);
   const errors = checkErrors.splice(0);
   seen.clear();
