@@ -10,7 +10,7 @@ import { Writable } from "node:stream";
 import { pipeline } from "node:stream/promises";
 import { monitorEventLoopDelay } from "node:perf_hooks";
 import sharp from "sharp";
-import { motifSvg, renderScan } from "@/db/seed/scan-art";
+import { motifSvg, renderScan } from "@/scripts/seed/scan-art";
 import { createScanLimiter, processScan, renderCoverageOverlay, type ScanStage } from "@/lib/scans";
 
 const LIMITS = { maxBytes: 256 * 1024 * 1024, maxPixels: 80_000_000 };

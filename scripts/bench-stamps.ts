@@ -28,7 +28,7 @@ try {
   const { database } = await import("@/db");
   const { apiTokens, users } = await import("@/db/schema");
   const { hashSecret, newSecret } = await import("@/lib/auth/secrets");
-  const { seedStamps } = await import("@/db/seed/stamps");
+  const { seedStamps } = await import("@/scripts/seed/stamps");
   const { client, db } = database();
   const seededAt = performance.now();
   await seedStamps(db, { count: STAMPS });

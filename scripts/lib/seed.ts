@@ -1,7 +1,7 @@
 import type { Database } from "@/db";
-import { seedScans } from "@/db/seed/scans";
-import { seedStamps } from "@/db/seed/stamps";
-import { demoUsers, seedUsers } from "@/db/seed/users";
+import { seedScans } from "../seed/scans";
+import { seedStamps } from "../seed/stamps";
+import { demoUsers, seedUsers } from "../seed/users";
 import { objectStoreFromEnv } from "./object-store-config";
 
 export async function seedDemo(db: Database) {

@@ -1,6 +1,6 @@
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { demoLocations, demoStamps, seedStamps } from "@/db/seed/stamps";
+import { demoLocations, demoStamps, seedStamps } from "@/scripts/seed/stamps";
 import { createUser, db } from "../helpers/db";
 import { launchBrowser, navLabels, signInThroughPage } from "../helpers/browser";
 import { testEnv } from "../helpers/env";

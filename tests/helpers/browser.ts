@@ -1,8 +1,13 @@
 import { chromium, type Browser, type Page } from "playwright-core";
+import { watchAccessibility } from "./accessibility";
 import { testEnv } from "./env";
 
+/**
+ * Chromium for the browser tests. Every context it makes (`browser.newContext()`, and `browser.newPage()`,
+ * which makes one) has its pages checked by axe-core (tests/helpers/accessibility.ts).
+ */
 export async function launchBrowser(): Promise<Browser> {
-  return chromium.launch({
+  const browser = await chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
     args: [
       "--headless",
@@ -15,6 +20,9 @@ export async function launchBrowser(): Promise<Browser> {
       "--disable-sync",
     ],
   });
+  const newContext = browser.newContext.bind(browser);
+  browser.newContext = async (options) => watchAccessibility(await newContext(options));
+  return browser;
 }
 
 export async function signInThroughPage(page: Page, email: string, password: string) {

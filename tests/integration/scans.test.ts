@@ -2,7 +2,7 @@ import { ListObjectsV2Command } from "@aws-sdk/client-s3";
 import { and, count, eq, inArray } from "drizzle-orm";
 import sharp from "sharp";
 import { beforeAll, describe, expect, it } from "vitest";
-import { seedScans } from "@/db/seed/scans";
+import { seedScans } from "@/scripts/seed/scans";
 import { stampEvents, stampScans, stamps, type Stamp } from "@/db/schema";
 import { objectStore } from "@/lib/s3";
 import { scanRejectedStatus } from "@/lib/errors";

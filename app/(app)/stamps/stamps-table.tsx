@@ -205,7 +205,7 @@ export function StampsTable({
                 {row.original.location.site} · <span className="font-mono">{row.original.location.code}</span>
               </Link>
             ) : (
-              <span className="text-stone-400">{t("stamps.table.noLocation")}</span>
+              <span className="text-stone-500">{t("stamps.table.noLocation")}</span>
             ),
         }),
         column.accessor((row) => row.checkout?.borrowerName ?? "", {
@@ -214,7 +214,7 @@ export function StampsTable({
           enableSorting: false,
           cell: ({ row }) => {
             const c = row.original.checkout;
-            if (!c) return <span className="text-stone-400">{t("stamps.table.onShelf")}</span>;
+            if (!c) return <span className="text-stone-500">{t("stamps.table.onShelf")}</span>;
             return (
               <span className="flex flex-col gap-0.5">
                 <OutBadge overdue={c.overdue} label={c.overdue ? t("stamps.table.overdue") : t("stamps.table.out")} />
@@ -403,7 +403,7 @@ export function StampsTable({
               </button>
             </span>
           ) : null}
-          {isValidating && !isLoading ? <span className="ml-2 text-xs text-stone-400">{t("stamps.table.updating")}</span> : null}
+          {isValidating && !isLoading ? <span className="ml-2 text-xs text-stone-500">{t("stamps.table.updating")}</span> : null}
         </p>
         <div className="flex flex-wrap items-center gap-2">
           <details className="relative">

@@ -2,7 +2,7 @@ import { Image, computeThreshold } from "image-js";
 import sharp from "sharp";
 import { describe, expect, it } from "vitest";
 import { greyHistogram, otsuThreshold, type GreyRaster } from "@/lib/scans";
-import { motifSvg, renderScan } from "@/db/seed/scan-art";
+import { motifSvg, renderScan } from "@/scripts/seed/scan-art";
 import { decodeGrey, seededNoisePng } from "@/tests/helpers/scan-images";
 
 /** σ_B²(k) written out from Otsu's definitions with floating point, independently of lib/scans. */

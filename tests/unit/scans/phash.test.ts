@@ -2,7 +2,7 @@ import sharp from "sharp";
 import { beforeAll, describe, expect, it } from "vitest";
 import { dctHash, hamming, motifHashes, nearest, type MotifHashes } from "@/lib/scans";
 import { dct2d } from "@/lib/scans/phash";
-import { motifSvg, renderScan } from "@/db/seed/scan-art";
+import { motifSvg, renderScan } from "@/scripts/seed/scan-art";
 import { decodeGrey } from "@/tests/helpers/scan-images";
 
 const hashesOf = async (bytes: Buffer) => motifHashes(await decodeGrey(bytes));

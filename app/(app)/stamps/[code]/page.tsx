@@ -54,7 +54,7 @@ export default async function StampPage({ params, searchParams }: Props) {
   ]);
   const { maxBytes, maxPixels } = scanLimits();
   const units = actor.unitSystem;
-  const none = <span className="text-stone-400">{t("stamps.record.notRecorded")}</span>;
+  const none = <span className="text-stone-500">{t("stamps.record.notRecorded")}</span>;
   const day = (iso: string) => format.dateTime(new Date(`${iso}T00:00:00Z`), { dateStyle: "medium", timeZone: "UTC" });
   const defaultDue = isoDateAfter(new Date(), 7);
   const checkout = stamp.checkout;
@@ -74,10 +74,10 @@ export default async function StampPage({ params, searchParams }: Props) {
       ) : stamp.face === "pair" ? (
         <span className="text-amber-800">{t("stamps.record.twinMissing")}</span>
       ) : (
-        <span className="text-stone-400">{t("stamps.record.noTwin")}</span>
+        <span className="text-stone-500">{t("stamps.record.noTwin")}</span>
       ),
     ],
-    [t("stamps.fields.motif"), <span key="motif" className="text-stone-400">{t("stamps.record.noMotif")}</span>],
+    [t("stamps.fields.motif"), <span key="motif" className="text-stone-500">{t("stamps.record.noMotif")}</span>],
     [t("stamps.fields.maker"), stamp.maker ?? none],
     [t("stamps.fields.madeOn"), stamp.madeOn ? day(stamp.madeOn) : none],
     [

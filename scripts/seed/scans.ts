@@ -7,7 +7,7 @@ import { motifSvg, renderScan, type ScanStyle } from "./scan-art";
 import { demoUsers } from "./users";
 import { scanKeys, scanRow } from "@/lib/data/scan-rows";
 
-// Demo scans: invented motif artwork (db/seed/scan-art.ts) rendered at a known DPI, run through the same
+// Demo scans: invented motif artwork (scripts/seed/scan-art.ts) rendered at a known DPI, run through the same
 // pipeline as an upload (lib/scans), stored in the object store and recorded like a keeper's upload. A mirror
 // twin gets its partner's motif mirrored, so "stamps that look like this one" finds the pair.
 

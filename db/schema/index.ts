@@ -1,0 +1,4 @@
+// Every table, enum and row type, one file per area; import from "@/db/schema". drizzle-kit reads this folder.
+export * from "./users";
+export * from "./stamps";
+export * from "./scans";

@@ -1,0 +1,81 @@
+import { sql } from "drizzle-orm";
+import { boolean, index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+
+// People: accounts, one-time links, personal API tokens and failed sign-ins.
+
+export const roleEnum = pgEnum("role", ["admin", "keeper", "planner", "waxmaster", "designer"]);
+export const unitSystemEnum = pgEnum("unit_system", ["metric", "imperial"]);
+export const localeEnum = pgEnum("locale", ["en", "id"]);
+export const userTokenKindEnum = pgEnum("user_token_kind", ["invite", "reset"]);
+
+export const users = pgTable(
+  "users",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    email: text("email").notNull(),
+    name: text("name").notNull(),
+    /** argon2id; null until an invited user sets a password. */
+    passwordHash: text("password_hash"),
+    role: roleEnum("role").notNull(),
+    disabled: boolean("disabled").notNull().default(false),
+    unitSystem: unitSystemEnum("unit_system").notNull().default("metric"),
+    locale: localeEnum("locale").notNull().default("en"),
+    /** Bumped when role, password or disabled changes: older sessions carry a lower number and are refused. */
+    sessionVersion: integer("session_version").notNull().default(1),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("users_email_key").on(sql`lower(${t.email})`)],
+);
+
+/** One-time links for invitations and password resets; only a SHA-256 of the secret is stored. */
+export const userTokens = pgTable(
+  "user_tokens",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    kind: userTokenKindEnum("kind").notNull(),
+    tokenHash: text("token_hash").notNull(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    usedAt: timestamp("used_at", { withTimezone: true }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("user_tokens_hash_key").on(t.tokenHash), index("user_tokens_user_idx").on(t.userId)],
+);
+
+/** Personal API tokens for scripts; the secret is shown once and only its SHA-256 is kept. */
+export const apiTokens = pgTable(
+  "api_tokens",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    tokenHash: text("token_hash").notNull(),
+    /** First characters of the secret, so people can tell their tokens apart. */
+    prefix: text("prefix").notNull(),
+    lastUsedAt: timestamp("last_used_at", { withTimezone: true }),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("api_tokens_hash_key").on(t.tokenHash), index("api_tokens_user_idx").on(t.userId)],
+);
+
+/** Failed sign-ins per e-mail address, to slow down guessing without locking anyone out for good. */
+export const signInFailures = pgTable(
+  "sign_in_failures",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    email: text("email").notNull(),
+    at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("sign_in_failures_email_at_idx").on(t.email, t.at)],
+);
+
+export type User = typeof users.$inferSelect;
+export type NewUser = typeof users.$inferInsert;
+export type ApiToken = typeof apiTokens.$inferSelect;
+export type Role = (typeof roleEnum.enumValues)[number];
