@@ -52,6 +52,7 @@ describe("every page", () => {
     await signInThroughPage(page, admin.email, admin.password);
     await visit(page, "/", (p) => p.getByTestId("permissions").waitFor());
     await visit(page, "/account", heading("My account"));
+    await visit(page, "/api-reference", heading("API reference"));
     await visit(page, "/admin", (p) => p.getByRole("form", { name: "Invite someone" }).waitFor());
     await visit(page, "/stamps", (p) => p.locator("tbody tr[data-testid]").first().waitFor());
     await visit(page, "/stamps/new", (p) => p.getByRole("form", { name: "Add a stamp" }).waitFor());
