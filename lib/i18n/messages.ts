@@ -9,16 +9,38 @@ import enScans from "./messages/en/scans.json";
 import enShell from "./messages/en/shell.json";
 import enStamps from "./messages/en/stamps.json";
 import enWax from "./messages/en/wax.json";
+import idApi from "./messages/id/api.json";
+import idAuth from "./messages/id/auth.json";
+import idEmails from "./messages/id/emails.json";
+import idErrors from "./messages/id/errors.json";
+import idLayout from "./messages/id/layout.json";
+import idPeople from "./messages/id/people.json";
+import idScans from "./messages/id/scans.json";
+import idShell from "./messages/id/shell.json";
+import idStamps from "./messages/id/stamps.json";
+import idWax from "./messages/id/wax.json";
+
+/**
+ * Languages that have a catalogue. `locales` in config.ts lists the ones people can choose; a
+ * catalogue may exist before its language is offered (Indonesian is written ahead of the switch).
+ */
+export type CatalogueLocale = Locale | "id";
 
 // One file per area, each holding whole top-level namespaces, so areas can grow without
-// touching each other's files. tests/unit/catalogue.test.ts checks no namespace is defined twice.
+// touching each other's files. Both lists name the same files in the same order;
+// tests/unit/catalogue.test.ts checks no namespace is defined twice, and
+// tests/unit/catalogue-parity.test.ts that the two languages have the same keys and placeholders.
 export const catalogueFiles = {
   en: [enShell, enAuth, enPeople, enErrors, enEmails, enLayout, enStamps, enScans, enApi, enWax],
-} satisfies Record<Locale, object[]>;
+  id: [idShell, idAuth, idPeople, idErrors, idEmails, idLayout, idStamps, idScans, idApi, idWax],
+} satisfies Record<CatalogueLocale, object[]>;
 
 const merge = (files: object[]) => Object.assign({}, ...files) as Record<string, unknown>;
-const catalogues: Record<Locale, Record<string, unknown>> = { en: merge(catalogueFiles.en) };
+const catalogues: Record<CatalogueLocale, Record<string, unknown>> = {
+  en: merge(catalogueFiles.en),
+  id: merge(catalogueFiles.id),
+};
 
-export function messagesFor(locale: Locale): Record<string, unknown> {
+export function messagesFor(locale: CatalogueLocale): Record<string, unknown> {
   return catalogues[locale];
 }
