@@ -7,6 +7,7 @@ import { translator, type Translator } from "@/lib/i18n/translator";
 import { type Permission } from "@/lib/permissions";
 import { assertCan, currentActor, type Actor } from "@/lib/session";
 import { translateIssues } from "@/lib/validation/issues";
+import { parseInput } from "@/lib/validation/parse";
 import { isCrossSite } from "./cross-site";
 
 interface Context<P> {
@@ -97,7 +98,7 @@ export async function readJson<S extends z.ZodType>(request: Request, schema: S)
 }
 
 export function parseOrThrow<S extends z.ZodType>(schema: S, value: unknown): z.output<S> {
-  const parsed = schema.safeParse(value, { reportInput: true });
+  const parsed = parseInput(schema, value);
   if (!parsed.success) throw new ValidationFailed(parsed.error.issues);
   return parsed.data;
 }

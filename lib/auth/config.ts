@@ -3,6 +3,7 @@ import Credentials from "next-auth/providers/credentials";
 import "next-auth/jwt";
 import type { Role } from "@/db/schema";
 import { checkCredentials } from "@/lib/data/sign-in";
+import { parseInput } from "@/lib/validation/parse";
 import { signInSchema } from "@/lib/validation/users";
 
 declare module "next-auth" {
@@ -42,7 +43,7 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
     Credentials({
       credentials: { email: {}, password: {} },
       async authorize(raw) {
-        const parsed = signInSchema.safeParse(raw);
+        const parsed = parseInput(signInSchema, raw);
         if (!parsed.success) return null;
         const result = await checkCredentials(parsed.data.email, parsed.data.password);
         if (result.kind === "rateLimited") throw new RateLimited();

@@ -7,6 +7,7 @@ import { AppError } from "@/lib/errors";
 import type { Translator } from "@/lib/i18n/translator";
 import { columnOfField, parseStampCsv, stampsToCsv, type CsvRowProblem } from "@/lib/stamps/csv";
 import { issueMessage } from "@/lib/validation/issues";
+import { controlCharacterIssues, parseInput } from "@/lib/validation/parse";
 import { createStampSchema, type CreateStampInput, type StampListQuery, type UpdateStampInput } from "@/lib/validation/stamps";
 import { createStamp, listAllStamps, listCheckouts, updateStamp } from "./stamps";
 
@@ -91,7 +92,9 @@ export async function importStampsCsv(actor: Actor, text: string, options: { dry
     const raw: Record<string, unknown> = { ...row.fields };
     const present = new Set(Object.keys(row.fields));
     let rowOk = true;
-    if (parsed.columns.includes("location")) {
+    // site and location are looked up, not parsed by the schema: their cells get the same control-character rule.
+    const cells = controlCharacterIssues({ site: row.site, location: row.location });
+    if (parsed.columns.includes("location") && cells.length === 0) {
       present.add("locationId");
       raw.locationId = null;
       if (row.location && !row.site) {
@@ -108,9 +111,9 @@ export async function importStampsCsv(actor: Actor, text: string, options: { dry
     }
     delete raw.site;
     delete raw.location;
-    const result = createStampSchema.safeParse(raw, { reportInput: true });
-    if (!result.success) {
-      for (const issue of result.error.issues) {
+    const result = parseInput(createStampSchema, raw);
+    if (!result.success || cells.length) {
+      for (const issue of [...cells, ...(result.success ? [] : result.error.issues)]) {
         const { key, values } = issueMessage(issue);
         const field = issue.path.length ? String(issue.path[0]) : null;
         problems.push({ line: row.line, column: field ? columnOfField(field) : null, message: t.has(key) ? t(key, values) : t("validation.invalid") });

@@ -10,6 +10,7 @@ import { listAllStamps } from "@/lib/data/stamps";
 import { env } from "@/lib/env";
 import { requirePageActor } from "@/lib/session";
 import { stampUrl } from "@/lib/stamps/codes";
+import { parseInput } from "@/lib/validation/parse";
 import { queryObject, stampCodeSchema, stampListQuerySchema } from "@/lib/validation/stamps";
 import { PrintButton } from "./print-button";
 
@@ -56,7 +57,7 @@ export default async function LabelsPage({ searchParams }: Props) {
   }
 
   const codes = (params.get("codes") ?? "").split(",").map((c) => stampCodeSchema.safeParse(c)).filter((r) => r.success).map((r) => r.data);
-  const parsed = stampListQuerySchema.safeParse(queryObject(params));
+  const parsed = parseInput(stampListQuerySchema, queryObject(params));
   const query = parsed.success ? parsed.data : {};
   let stamps = await listAllStamps(actor, codes.length ? { codes } : query, MAX_LABELS + 1);
   const tooMany = stamps.length > MAX_LABELS;
