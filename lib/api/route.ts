@@ -8,6 +8,7 @@ import { type Permission } from "@/lib/permissions";
 import { assertCan, currentActor, type Actor } from "@/lib/session";
 import { translateIssues } from "@/lib/validation/issues";
 import { parseInput } from "@/lib/validation/parse";
+import { isJsonMediaType, JSON_BODY_MAX_BYTES, mediaTypeOf, readBodyText } from "./body";
 import { isCrossSite } from "./cross-site";
 
 interface Context<P> {
@@ -84,13 +85,16 @@ export function apiRoute<P = Record<string, never>>(options: Options, handler: H
   };
 }
 
-/** Reads and validates a JSON body: 415 for another content type, 400 for broken JSON or bad fields. */
+/**
+ * Reads and validates a JSON body: 415 unless the media type is application/json or …+json, 413 past
+ * JSON_BODY_MAX_BYTES (lib/api/body.ts), 400 for broken JSON or bad fields.
+ */
 export async function readJson<S extends z.ZodType>(request: Request, schema: S): Promise<z.output<S>> {
-  const type = request.headers.get("content-type") ?? "";
-  if (!type.toLowerCase().includes("application/json")) throw new AppError("unsupportedMediaType");
+  if (!isJsonMediaType(mediaTypeOf(request.headers.get("content-type")))) throw new AppError("unsupportedMediaType");
+  const text = await readBodyText(request, JSON_BODY_MAX_BYTES);
   let body: unknown;
   try {
-    body = await request.json();
+    body = JSON.parse(text);
   } catch {
     throw new AppError("badRequest");
   }
