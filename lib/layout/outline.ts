@@ -149,7 +149,7 @@ export function flattenedVertexCount(item: paper.CompoundPath, toleranceMm: numb
   for (const child of item.children as paper.Path[]) {
     for (const curve of child.curves) {
       if (vertices > max) return vertices;
-      vertices += curve.isStraight() ? 1 : chordsOfCurve(curve.getValues() as unknown as number[], toleranceMm, max - vertices);
+      vertices += curve.isStraight() ? 1 : chordsOfCurve(curve.values, toleranceMm, max - vertices);
     }
   }
   return vertices;

@@ -46,7 +46,7 @@ describe("the outline's size is capped before it is parsed", () => {
     for (let i = 0; i < 2000; i++) outline += ` A90 90 0 1 1 ${i % 2 ? 101 : 99} 100`;
     const res = await api("POST", "/api/v1/layout", { session: planner, body: plan(`${outline} Z`) });
     expect(res.status).toBe(422);
-    expect(res.body.error.fields["stamp.outline"].join(" ")).toMatch(/at most 100,000/);
+    expect(res.body.error.fields["stamp.outline"].join(" ")).toMatch(/more than 100,000 points/);
   });
 });
 

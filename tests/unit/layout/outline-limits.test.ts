@@ -36,11 +36,14 @@ describe("path segments", () => {
   });
 
   it(`over ${OUTLINE_MAX_SEGMENTS} are refused before paper.js parses the outline`, () => {
-    const parse = vi.spyOn(paper.CompoundPath.prototype, "setPathData");
+    const parse = vi.spyOn(paper.CompoundPath.prototype, "pathData", "set");
     const error = refusal(() => buildStampShape({ widthMm: 200, heightMm: 200, outline: zigzag(OUTLINE_MAX_SEGMENTS) }));
     expect(error.code).toBe("outlineTooManySegments");
     expect(error.params).toEqual({ max: OUTLINE_MAX_SEGMENTS });
     expect(parse).not.toHaveBeenCalled();
+    // The spy does see a parse when there is one.
+    buildStampShape({ widthMm: 200, heightMm: 200, outline: "M0 0 H100 V100 H0 Z" });
+    expect(parse).toHaveBeenCalled();
   });
 
   it("up to the limit are laid out", () => {
@@ -70,6 +73,8 @@ describe("flattened points", () => {
     expect(error.code).toBe("outlineTooComplex");
     expect(error.params).toEqual({ max: OUTLINE_MAX_VERTICES });
     expect(flatten).not.toHaveBeenCalled();
+    buildStampShape({ widthMm: 200, heightMm: 200, outline: "M100 20 A80 80 0 1 1 99.9 20 Z" });
+    expect(flatten).toHaveBeenCalled();
   });
 });
 
