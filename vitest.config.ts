@@ -28,6 +28,7 @@ export default defineConfig({
         test: {
           name: "e2e",
           include: ["tests/e2e/**/*.test.ts"],
+          setupFiles: ["tests/helpers/e2e-setup.ts"],
           environment: "node",
           fileParallelism: false,
           testTimeout: 90_000,

@@ -1,6 +1,7 @@
 import "server-only";
 import { NextResponse } from "next/server";
 import { ZodError, type z } from "zod";
+import { appOrigins } from "@/lib/app-origins";
 import { AppError, type FieldErrors, type FieldMessage } from "@/lib/errors";
 import { pickLocale } from "@/lib/i18n/config";
 import { translator, type Translator } from "@/lib/i18n/translator";
@@ -71,18 +72,26 @@ export function apiRoute<P = Record<string, never>>(options: Options, handler: H
   return async (request: Request, context: { params: Promise<P> }): Promise<Response> => {
     let t = translator(localeFrom(request, null));
     try {
-      if (isCrossSite(request)) throw new AppError("crossSite");
+      if (isCrossSite(request, appOrigins())) throw new AppError("crossSite");
       const actor = await currentActor();
       if (!actor) throw new AppError("unauthenticated");
       t = translator(localeFrom(request, actor));
       assertCan(actor, options.permission);
       const result = await handler({ request, actor, params: await context.params, t });
-      if (result instanceof Response) return result;
-      return NextResponse.json(result);
+      return privateAnswer(result instanceof Response ? result : NextResponse.json(result));
     } catch (error) {
-      return errorResponse(error, t);
+      return privateAnswer(errorResponse(error, t));
     }
   };
+}
+
+/**
+ * Every /api/v1 answer is about someone's workshop and account: caches keep none of it unless the route
+ * chose its own policy (scan images: private, a few minutes). nosniff and the rest come from proxy.ts.
+ */
+export function privateAnswer(response: Response): Response {
+  if (!response.headers.has("cache-control")) response.headers.set("cache-control", "no-store");
+  return response;
 }
 
 /**

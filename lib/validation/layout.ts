@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "./zod";
 import {
   CLOTH_WIDTH_MAX_MM,
   CLOTH_WIDTH_MIN_MM,

@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "./zod";
 
 // The one way an input from outside is parsed: JSON bodies, query strings, route params, form data
 // and CSV rows all come through `parseInput`, so a rule that holds for every input lives here.

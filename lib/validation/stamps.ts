@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "./zod";
 
 // One schema per input of the stamp shelf, shared by forms, server actions, route handlers,
 // the CSV import and the tests. Lengths in mm, masses in g, dates as YYYY-MM-DD.

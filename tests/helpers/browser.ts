@@ -1,8 +1,26 @@
-import { chromium, type Browser, type Page } from "playwright-core";
+import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
 import { testEnv } from "./env";
 
+/** What the browser said about the Content-Security-Policy since the last look: each refusal is a defect. */
+const cspViolations: string[] = [];
+
+/** The CSP violations seen since the last call (tests/helpers/e2e-setup.ts fails every test that caused one). */
+export function takeCspViolations(): string[] {
+  return cspViolations.splice(0);
+}
+
+function watchForCsp(context: BrowserContext) {
+  context.on("console", (message) => {
+    if (/Content Security Policy|Content-Security-Policy/i.test(message.text())) cspViolations.push(`${message.page()?.url() ?? "?"}: ${message.text()}`);
+  });
+  // Reports what the console may not, e.g. a refused style attribute.
+  void context.addInitScript(() => {
+    document.addEventListener("securitypolicyviolation", (e) => console.error(`Content Security Policy: ${e.violatedDirective} refused ${e.blockedURI || "inline"}`));
+  });
+}
+
 export async function launchBrowser(): Promise<Browser> {
-  return chromium.launch({
+  const browser = await chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
     args: [
       "--headless",
@@ -15,6 +33,13 @@ export async function launchBrowser(): Promise<Browser> {
       "--disable-sync",
     ],
   });
+  const newContext = browser.newContext.bind(browser);
+  browser.newContext = async (...args) => {
+    const context = await newContext(...args);
+    watchForCsp(context);
+    return context;
+  };
+  return browser;
 }
 
 export async function signInThroughPage(page: Page, email: string, password: string) {
