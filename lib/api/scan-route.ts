@@ -3,6 +3,10 @@ import { NextResponse } from "next/server";
 import { ScanProblem } from "@/lib/data/scans";
 import type { Translator } from "@/lib/i18n/translator";
 import { ScanRejected, scanRejectedStatus } from "@/lib/scans";
+import { MAX_FILE_NAME_LENGTH } from "@/lib/scans/file-name";
+import { controlCharacterMessage } from "@/lib/validation/parse";
+import type { z } from "zod";
+import { readJson, ValidationFailed } from "./route";
 
 const MIB = 1024 * 1024;
 
@@ -40,6 +44,21 @@ export async function withScanErrors<T>(t: Translator, work: () => Promise<T>): 
   } catch (error) {
     const response = scanErrorResponse(error, t);
     if (response) return response;
+    throw error;
+  }
+}
+
+/**
+ * Reads a scan route's JSON body (readJson). A file name the shared control-character rule refuses is
+ * reported the way lib/scans refuses every hidden character in a name (bidirectional overrides too):
+ * as badFileName, the refusal the uploader already explains. Call inside withScanErrors.
+ */
+export async function readScanJson<S extends z.ZodType>(request: Request, schema: S): Promise<z.output<S>> {
+  try {
+    return await readJson(request, schema);
+  } catch (error) {
+    const hidden = error instanceof ValidationFailed && error.issues.some((i) => i.path.join(".") === "fileName" && i.message === controlCharacterMessage);
+    if (hidden) throw new ScanRejected("badFileName", { reason: "hiddenCharacters", maxLength: MAX_FILE_NAME_LENGTH });
     throw error;
   }
 }

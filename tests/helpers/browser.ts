@@ -9,12 +9,12 @@ export function takeCspViolations(): string[] {
   return cspViolations.splice(0);
 }
 
-function watchForCsp(context: BrowserContext) {
+async function watchForCsp(context: BrowserContext) {
   context.on("console", (message) => {
     if (/Content Security Policy|Content-Security-Policy/i.test(message.text())) cspViolations.push(`${message.page()?.url() ?? "?"}: ${message.text()}`);
   });
   // Reports what the console may not, e.g. a refused style attribute.
-  void context.addInitScript(() => {
+  await context.addInitScript(() => {
     document.addEventListener("securitypolicyviolation", (e) => console.error(`Content Security Policy: ${e.violatedDirective} refused ${e.blockedURI || "inline"}`));
   });
 }
@@ -36,7 +36,7 @@ export async function launchBrowser(): Promise<Browser> {
   const newContext = browser.newContext.bind(browser);
   browser.newContext = async (...args) => {
     const context = await newContext(...args);
-    watchForCsp(context);
+    await watchForCsp(context);
     return context;
   };
   return browser;
