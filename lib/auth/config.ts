@@ -44,7 +44,8 @@ async function clientAddressOfRequest(): Promise<string | null> {
 
 export const { handlers, auth, signIn, signOut } = NextAuth({
   trustHost: true,
-  // Secure cookies (and the __Secure- names) whenever the public address is https, even when TLS ends at a proxy.
+  // Secure cookies (and the __Secure-/__Host- names) whenever the public address is https, even when TLS ends
+  // at a proxy. Read from process.env, not env(): this object is built on import, also during `next build`.
   useSecureCookies: (process.env.APP_URL ?? "").startsWith("https://"),
   logger: {
     // A wrong password is an everyday event, not a server error worth a stack trace.

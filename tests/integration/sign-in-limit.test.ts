@@ -32,6 +32,17 @@ describe("the sign-in limit", () => {
     expect(await signInFrom(OWNER, owner.email, owner.password)).not.toBeNull();
   });
 
+  it("a stranger using several addresses slows the account down, but never locks the owner out", async () => {
+    const owner = await createUser("waxmaster");
+    const addresses = ["127.0.0.3", "127.0.0.4", "127.0.0.5"];
+    const tries = addresses.flatMap((address) => Array.from({ length: 12 }, (_, i) => signInFrom(address, owner.email, `guess ${address} ${i}`)));
+    expect((await Promise.all(tries)).every((t) => t === null)).toBe(true);
+    // 10 checks per address, 30 in all: the account is over its ceiling, so each further check waits…
+    expect(await passwordChecks(owner.email)).toBe(30);
+    // …and the owner still gets in.
+    expect(await signInFrom(OWNER, owner.email, owner.password)).not.toBeNull();
+  });
+
   it("a client that tries to choose its own address with headers is still counted by its socket", async () => {
     const user = await createUser("planner");
     const spoofs = Array.from({ length: 12 }, (_, i) => ({ "x-forwarded-for": `10.9.8.${i}`, "x-capgrid-client-address": `10.9.9.${i}` }));
