@@ -10,7 +10,13 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: "unit", include: ["tests/unit/**/*.test.ts"], environment: "node" },
+        test: {
+          name: "unit",
+          include: ["tests/unit/**/*.test.ts"],
+          environment: "node",
+          // next-auth imports "next/server" without an extension, which Node's own resolver refuses.
+          server: { deps: { inline: ["next-auth"] } },
+        },
       },
       {
         extends: true,

@@ -4,10 +4,24 @@ import { z } from "zod";
 // An empty value (as .env.example leaves it) means "use the default".
 const optionalCount = z.preprocess((v) => (v === "" ? undefined : v), z.coerce.number().int().positive().optional());
 
+/** "https://a.example, http://b.example:8080" → each entry's origin; empty means none. */
+const originList = z.preprocess(
+  (v) => (typeof v === "string" ? v.split(",").map((s) => s.trim()).filter(Boolean) : v),
+  z.array(z.url({ protocol: /^https?$/ }).transform((u) => new URL(u).origin)).default([]),
+);
+
 // Parsed once at start-up; a missing or malformed variable stops the app with a clear message.
 const schema = z.object({
   DATABASE_URL: z.url(),
+  /** The app's public address: links in e-mails, the origin writes must come from, https → HSTS and Secure cookies. */
   APP_URL: z.url().default("http://localhost:3000"),
+  /** More origins the app is reached under (comma-separated), accepted like APP_URL's by the same-origin check. */
+  APP_ORIGINS: originList,
+  /**
+   * How many reverse proxies stand in front of the app (0 or empty: none). Only then does scripts/server.ts
+   * take the client's address from X-Forwarded-For and keep the forwarded headers; otherwise it drops them.
+   */
+  TRUST_PROXY: z.preprocess((v) => (v === "" ? undefined : v), z.coerce.number().int().min(0).max(10).default(0)),
   AUTH_SECRET: z.string().min(16, "AUTH_SECRET must be at least 16 characters (openssl rand -base64 33)"),
   SMTP_HOST: z.string().min(1),
   SMTP_PORT: z.coerce.number().int().positive(),

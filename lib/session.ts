@@ -7,6 +7,7 @@ import { db } from "@/db";
 import { apiTokens, users } from "@/db/schema";
 import { auth } from "@/lib/auth/config";
 import { hashSecret } from "@/lib/auth/secrets";
+import { sessionIsActive } from "@/lib/data/sessions";
 import { AppError } from "@/lib/errors";
 import { assertCan, toActor, type Actor } from "@/lib/authz";
 import type { Permission } from "@/lib/permissions";
@@ -29,9 +30,10 @@ async function actorFromSession(): Promise<Actor | null> {
   const session = await auth();
   const claimed = session?.user;
   if (!claimed?.id) return null;
-  const [user] = await db.select().from(users).where(eq(users.id, claimed.id)).limit(1);
-  // A role change, new password or disabling bumps sessionVersion: older sessions end here.
-  if (!user || user.disabled || user.sessionVersion !== claimed.sessionVersion) return null;
+  const [[user], sessionActive] = await Promise.all([db.select().from(users).where(eq(users.id, claimed.id)).limit(1), sessionIsActive(claimed.sessionId, claimed.id)]);
+  // Signing out revokes the cookie's session row; a role change, new password or disabling bumps
+  // sessionVersion. Either way older cookies end here, copies included.
+  if (!user || !sessionActive || user.disabled || user.sessionVersion !== claimed.sessionVersion) return null;
   return toActor(user, "session");
 }
 

@@ -41,7 +41,8 @@ try {
 }
 
 const port = env.PORT ?? "3000";
-const app = spawn(join(projectRoot, "node_modules", ".bin", "next"), [dev ? "dev" : "start", "-p", port, "-H", env.CAPGRID_HOST ?? "127.0.0.1"], {
+// scripts/server.ts serves the app (Next's handler behind node:http), so the app sees each client's real address.
+const app = spawn(join(projectRoot, "node_modules", ".bin", "tsx"), [join(projectRoot, "scripts", "server.ts"), ...(dev ? ["--dev"] : []), "--port", port, "--host", env.CAPGRID_HOST ?? "127.0.0.1"], {
   stdio: "inherit",
   env: process.env,
   cwd: projectRoot,

@@ -1,7 +1,7 @@
 import { sql } from "drizzle-orm";
-import { boolean, index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { boolean, check, index, integer, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 
-// People: accounts, one-time links, personal API tokens and failed sign-ins.
+// People: accounts, one-time links, personal API tokens, sign-in counters and sessions.
 
 export const roleEnum = pgEnum("role", ["admin", "keeper", "planner", "waxmaster", "designer"]);
 export const unitSystemEnum = pgEnum("unit_system", ["metric", "imperial"]);
@@ -64,15 +64,52 @@ export const apiTokens = pgTable(
   (t) => [uniqueIndex("api_tokens_hash_key").on(t.tokenHash), index("api_tokens_user_idx").on(t.userId)],
 );
 
-/** Failed sign-ins per e-mail address, to slow down guessing without locking anyone out for good. */
+/** Every password check that failed, with the client's address: the record of guessing (lib/data/sign-in.ts). */
 export const signInFailures = pgTable(
   "sign_in_failures",
   {
     id: uuid("id").primaryKey().defaultRandom(),
     email: text("email").notNull(),
+    /** The client's address (scripts/server.ts), null when the app runs without it. */
+    address: text("address"),
     at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("sign_in_failures_email_at_idx").on(t.email, t.at)],
+);
+
+/**
+ * Sign-in attempts counted per window, bumped in one statement before any password is checked: per
+ * account and client address (`scope` = the address key), and per account across all addresses
+ * (`scope` = "*"). lib/data/sign-in.ts reads the returned count to refuse or slow down.
+ */
+export const signInCounters = pgTable(
+  "sign_in_counters",
+  {
+    email: text("email").notNull(),
+    scope: text("scope").notNull(),
+    windowStartedAt: timestamp("window_started_at", { withTimezone: true }).notNull().defaultNow(),
+    attempts: integer("attempts").notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.email, t.scope] }), check("sign_in_counters_attempts_check", sql`${t.attempts} >= 0`)],
+);
+
+/**
+ * One row per sign-in: its id travels in the session cookie (JWT `sid`). Signing out revokes the row,
+ * "sign out everywhere" all of a user's rows; lib/session.ts refuses a cookie whose row is revoked,
+ * expired or missing.
+ */
+export const userSessions = pgTable(
+  "user_sessions",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+  },
+  (t) => [index("user_sessions_user_idx").on(t.userId), check("user_sessions_expiry_check", sql`${t.expiresAt} > ${t.createdAt}`)],
 );
 
 export type User = typeof users.$inferSelect;

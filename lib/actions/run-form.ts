@@ -5,6 +5,7 @@ import type { z } from "zod";
 import { errorAnswer, issueFields } from "@/lib/error-body";
 import { pickLocale } from "@/lib/i18n/config";
 import { translator } from "@/lib/i18n/translator";
+import { parseInput } from "@/lib/validation/parse";
 import type { FormState } from "./form-state";
 
 const secretFields = new Set(["password", "confirm", "token", "currentPassword"]);
@@ -30,7 +31,7 @@ export async function runForm<S extends z.ZodType>(
 ): Promise<FormState> {
   const t = translator(pickLocale(await getLocale()));
   const values = keepValues(formData);
-  const parsed = schema.safeParse(toInput(formData), { reportInput: true });
+  const parsed = parseInput(schema, toInput(formData));
   if (!parsed.success) {
     return {
       status: "error",

@@ -1,5 +1,5 @@
 import "server-only";
-import { z } from "zod";
+import { z } from "@/lib/zod";
 import type { Translator } from "@/lib/i18n/translator";
 import { permissionTable } from "@/lib/permissions";
 import { httpMethods, type Endpoint, type HttpMethod, type RouteHandler } from "./route";

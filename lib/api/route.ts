@@ -1,6 +1,7 @@
 import "server-only";
 import { NextResponse } from "next/server";
 import type { z } from "zod";
+import { appOrigins } from "@/lib/app-origins";
 import { errorAnswer } from "@/lib/error-body";
 import { AppError, ValidationFailed } from "@/lib/errors";
 import { pickLocale } from "@/lib/i18n/config";
@@ -8,6 +9,8 @@ import { translator, type Translator } from "@/lib/i18n/translator";
 import { type Permission } from "@/lib/permissions";
 import { assertCan, currentActor, type Actor } from "@/lib/session";
 import { queryObject } from "@/lib/validation/common";
+import { parseInput } from "@/lib/validation/parse";
+import { isJsonMediaType, JSON_BODY_MAX_BYTES, mediaTypeOf, readBodyText } from "./body";
 import { isCrossSite } from "./cross-site";
 
 /** What a route declares: the reference (lib/api/openapi.ts) and the parsing below are both built from it. */
@@ -24,6 +27,8 @@ export interface Endpoint {
   body?: z.ZodType;
   /** An empty request body counts as `{}` (e.g. a return with nothing to add). */
   bodyOptional?: boolean;
+  /** Turns a refused body into the route's own refusal (the scan routes answer a hidden character in a file name as badFileName). */
+  bodyRefusal?: (error: ValidationFailed) => Error | undefined;
   /** A body that is not JSON, read by the handler itself (documented only). */
   accepts?: "text/csv";
   /** The success answer, for the reference: 200 JSON unless said. */
@@ -68,27 +73,31 @@ export function apiRoute<E extends Endpoint>(endpoint: E, handler: (ctx: Context
   const route: RouteHandler = async (request, context) => {
     let t = translator(localeFrom(request, null));
     try {
-      if (isCrossSite(request)) throw new AppError("crossSite");
+      if (isCrossSite(request, appOrigins())) throw new AppError("crossSite");
       const actor = await currentActor();
       if (!actor) throw new AppError("unauthenticated");
       t = translator(localeFrom(request, actor));
       assertCan(actor, endpoint.permission);
       const params = endpoint.params ? parseOrThrow(endpoint.params, await context.params) : undefined;
       const query = endpoint.query ? parseOrThrow(endpoint.query, queryObject(new URL(request.url).searchParams)) : undefined;
-      const body = endpoint.body
-        ? endpoint.bodyOptional && request.headers.get("content-length") === "0"
-          ? parseOrThrow(endpoint.body, {})
-          : await readJson(request, endpoint.body)
-        : undefined;
+      const body = endpoint.body ? await readBody(request, endpoint) : undefined;
       const result = await handler({ request, actor, params, query, body, t } as Context<E>);
-      if (result instanceof Response) return result;
-      return NextResponse.json(result);
+      return privateAnswer(result instanceof Response ? result : NextResponse.json(result));
     } catch (error) {
-      return errorResponse(error, t);
+      return privateAnswer(errorResponse(error, t));
     }
   };
   route.endpoint = endpoint;
   return route;
+}
+
+async function readBody(request: Request, endpoint: Endpoint) {
+  try {
+    if (endpoint.bodyOptional && request.headers.get("content-length") === "0") return parseOrThrow(endpoint.body!, {});
+    return await readJson(request, endpoint.body!);
+  } catch (error) {
+    throw (error instanceof ValidationFailed && endpoint.bodyRefusal?.(error)) || error;
+  }
 }
 
 /**
@@ -100,26 +109,39 @@ export function methods(handlers: Partial<Record<HttpMethod, RouteHandler>>): Re
   const notAllowed: RouteHandler = async (request) => {
     const response = errorResponse(new AppError("methodNotAllowed", { method: request.method }), translator(localeFrom(request, null)));
     response.headers.set("allow", allow);
-    return response;
+    return privateAnswer(response);
   };
   return Object.fromEntries(httpMethods.map((m) => [m, handlers[m] ?? notAllowed])) as Record<HttpMethod, RouteHandler>;
 }
 
-/** Reads and validates a JSON body: 415 for another content type, 400 for broken JSON or bad fields. */
+/**
+ * Every /api/v1 answer is about someone's workshop and account: caches keep none of it unless the route
+ * chose its own policy (scan images: private, a few minutes). nosniff and the rest come from proxy.ts.
+ */
+export function privateAnswer(response: Response): Response {
+  if (!response.headers.has("cache-control")) response.headers.set("cache-control", "no-store");
+  return response;
+}
+
+/**
+ * Reads and validates a JSON body: 415 unless the media type is application/json or …+json, 413 past
+ * JSON_BODY_MAX_BYTES (lib/api/body.ts), 400 for broken JSON or bad fields.
+ */
 export async function readJson<S extends z.ZodType>(request: Request, schema: S): Promise<z.output<S>> {
-  const type = request.headers.get("content-type") ?? "";
-  if (!type.toLowerCase().includes("application/json")) throw new AppError("unsupportedMediaType");
+  if (!isJsonMediaType(mediaTypeOf(request.headers.get("content-type")))) throw new AppError("unsupportedMediaType");
+  const text = await readBodyText(request, JSON_BODY_MAX_BYTES);
   let body: unknown;
   try {
-    body = await request.json();
+    body = JSON.parse(text);
   } catch {
     throw new AppError("badRequest");
   }
   return parseOrThrow(schema, body);
 }
 
+/** Parses any outside input through the one rule (lib/validation/parse.ts); 400 naming each field otherwise. */
 export function parseOrThrow<S extends z.ZodType>(schema: S, value: unknown): z.output<S> {
-  const parsed = schema.safeParse(value, { reportInput: true });
+  const parsed = parseInput(schema, value);
   if (!parsed.success) throw new ValidationFailed(parsed.error.issues);
   return parsed.data;
 }

@@ -5,6 +5,7 @@ import { locations, stamps } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz";
 import { columnOfField, parseStampCsv, stampsToCsv, type CsvRowProblem } from "@/lib/stamps/csv";
 import { AppError, issueMessage, type MessageRef } from "@/lib/errors";
+import { controlCharacterIssues, parseInput } from "@/lib/validation/parse";
 import { createStampSchema, type CreateStampInput, type StampListQuery, type UpdateStampInput } from "@/lib/validation/stamps";
 import { createStamp, listAllStamps, listCheckouts, updateStamp } from "./stamps";
 import type { ImportResult } from "@/lib/contracts/stamps";
@@ -89,7 +90,9 @@ export async function importStampsCsv(actor: Actor, text: string, options: { dry
     const raw: Record<string, unknown> = { ...row.fields };
     const present = new Set(Object.keys(row.fields));
     let rowOk = true;
-    if (parsed.columns.includes("location")) {
+    // site and location are looked up, not parsed by the schema: their cells get the same control-character rule.
+    const cells = controlCharacterIssues({ site: row.site, location: row.location });
+    if (parsed.columns.includes("location") && cells.length === 0) {
       present.add("locationId");
       raw.locationId = null;
       if (row.location && !row.site) {
@@ -106,9 +109,9 @@ export async function importStampsCsv(actor: Actor, text: string, options: { dry
     }
     delete raw.site;
     delete raw.location;
-    const result = createStampSchema.safeParse(raw, { reportInput: true });
-    if (!result.success) {
-      for (const issue of result.error.issues) {
+    const result = parseInput(createStampSchema, raw);
+    if (!result.success || cells.length) {
+      for (const issue of [...cells, ...(result.success ? [] : result.error.issues)]) {
         const field = issue.path.length ? String(issue.path[0]) : null;
         problems.push({ line: row.line, column: field ? columnOfField(field) : null, message: issueMessage(issue) });
       }

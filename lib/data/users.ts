@@ -10,6 +10,7 @@ import { AppError } from "@/lib/errors";
 import { pickLocale } from "@/lib/i18n/config";
 import { translator } from "@/lib/i18n/translator";
 import { sendMail } from "@/lib/mail";
+import { clearSignInLimits } from "./sign-in";
 import { assertCan, type Actor } from "@/lib/authz";
 import type { InviteUserInput, UpdateUserInput } from "@/lib/validation/users";
 import type { UserDto } from "@/lib/contracts/people";
@@ -116,6 +117,8 @@ export async function setPasswordWithToken(secret: string, password: string): Pr
       .where(and(eq(users.id, token.userId), eq(users.disabled, false)))
       .returning();
     if (!user) throw new AppError("tokenInvalid");
+    // Whoever could read the mail has proved the account is theirs: its sign-in limits are lifted.
+    await clearSignInLimits(user.email, tx);
     return { email: user.email };
   });
 }

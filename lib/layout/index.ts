@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "@/lib/zod";
 import { issueMessage, issuePath } from "@/lib/errors";
 import { buildPattern } from "./arrangements";
 import { waxAreas } from "./area";

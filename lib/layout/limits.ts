@@ -12,8 +12,14 @@ export const GAP_MAX_MM = 1000;
 /** A negative gap may overlap neighbours, but the repeat must still advance by at least this much. */
 export const MIN_STEP_MM = 1;
 
-export const OUTLINE_MAX_CHARS = 500_000;
-/** Vertices of the outline after curves are flattened. */
+/**
+ * Cost caps of one outline: its UTF-8 size (checked by the request schema), its path segments (commands
+ * and their implicit repeats, counted before paper.js parses it) and its vertices once curves are
+ * flattened (counted from the parsed curves before flattening). Arcs are the costliest segments to
+ * parse: 5,000 of them take paper.js a few tenths of a second on the 2-core CI machine.
+ */
+export const OUTLINE_MAX_BYTES = 200_000;
+export const OUTLINE_MAX_SEGMENTS = 5_000;
 export const OUTLINE_MAX_VERTICES = 100_000;
 /** Largest distance between a curve and the chords that replace it. */
 export const FLATTEN_TOLERANCE_MM = 0.01;

@@ -1,11 +1,12 @@
 import ClipperLib, { type Paths } from "clipper-lib";
 import paper from "paper";
-import { layoutError } from "./errors";
+import { LayoutInputError, layoutError } from "./errors";
 import { boxOfPoints, ringArea, type Box, type Ring } from "./geometry";
 import {
   CLIPPER_UNITS_PER_MM,
   FLATTEN_TOLERANCE_MM,
   OUTLINE_FOOTPRINT_SLACK_MM,
+  OUTLINE_MAX_SEGMENTS,
   OUTLINE_MAX_VERTICES,
   OUTLINE_MIN_AREA_MM2,
 } from "./limits";
@@ -34,20 +35,28 @@ const ARITY: Record<string, number> = { m: 2, l: 2, h: 1, v: 1, c: 6, s: 4, q: 4
 const NUMBER = /[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?/y;
 const SEPARATOR = /[\s,]*/y;
 
+export interface PathDataScan {
+  /** Offset of the first offending character, or -1 when the data is well formed (as far as it was read). */
+  errorAt: number;
+  /** Path segments read: each command and each implicit repeat of its arguments. */
+  segments: number;
+}
+
 /**
- * Checks SVG path data syntax (SVG 1.1 path grammar, except arc flags must be separated numbers).
+ * Checks SVG path data syntax (SVG 1.1 path grammar, except arc flags must be separated numbers) and
+ * counts its segments, in one linear pass that stops once `maxSegments` is passed.
  * paper.js skips characters it does not understand, so bad data must be caught before it.
- * Returns the offending character offset, or -1 when the data is well formed.
  */
-export function pathDataErrorAt(d: string): number {
+export function scanPathData(d: string, maxSegments = Number.POSITIVE_INFINITY): PathDataScan {
   let i = 0;
   let command = "";
+  let arity = 0;
   let args: number[] = [];
   let commandAt = 0;
   let first = true;
+  let segments = 0;
   const finish = (): boolean => {
     if (command === "") return true;
-    const arity = ARITY[command.toLowerCase()];
     if (arity === 0) return args.length === 0;
     if (args.length === 0 || args.length % arity !== 0) return false;
     if (command.toLowerCase() === "a") {
@@ -58,33 +67,42 @@ export function pathDataErrorAt(d: string): number {
     }
     return true;
   };
-  while (true) {
+  while (segments <= maxSegments) {
     SEPARATOR.lastIndex = i;
     SEPARATOR.exec(d);
     i = SEPARATOR.lastIndex;
     if (i >= d.length) break;
     const ch = d[i];
     if (/[a-z]/i.test(ch)) {
-      if (!(ch.toLowerCase() in ARITY)) return i;
-      if (!finish()) return commandAt;
-      if (first && ch.toLowerCase() !== "m") return i;
+      if (!(ch.toLowerCase() in ARITY)) return { errorAt: i, segments };
+      if (!finish()) return { errorAt: commandAt, segments };
+      if (first && ch.toLowerCase() !== "m") return { errorAt: i, segments };
       first = false;
       command = ch;
+      arity = ARITY[ch.toLowerCase()];
       commandAt = i;
       args = [];
+      if (arity === 0) segments++;
       i++;
       continue;
     }
     NUMBER.lastIndex = i;
     const match = NUMBER.exec(d);
-    if (!match || command === "") return i;
+    if (!match || command === "") return { errorAt: i, segments };
     const value = Number(match[0]);
-    if (!Number.isFinite(value)) return i;
+    if (!Number.isFinite(value)) return { errorAt: i, segments };
     args.push(value);
+    if (arity > 0 && args.length % arity === 0) segments++;
     i = NUMBER.lastIndex;
   }
-  if (first) return 0;
-  return finish() ? -1 : commandAt;
+  if (segments > maxSegments) return { errorAt: -1, segments };
+  if (first) return { errorAt: 0, segments };
+  return { errorAt: finish() ? -1 : commandAt, segments };
+}
+
+/** The offending character offset of malformed path data, or -1 when it is well formed. */
+export function pathDataErrorAt(d: string): number {
+  return scanPathData(d).errorAt;
 }
 
 let scope: paper.PaperScope | null = null;
@@ -97,10 +115,57 @@ function paperScope(): paper.PaperScope {
   return scope;
 }
 
-/** Flattens path data with paper.js into rings (mm); curves and arcs become chords within `toleranceMm`. */
-export function flattenPathData(d: string, toleranceMm = FLATTEN_TOLERANCE_MM): Ring[] {
+/**
+ * How many chords paper.js's flatten makes of one cubic curve (its 8 control values) at `toleranceMm`,
+ * counted the way it works — halve until Curve.isFlatEnough holds, never below 1/256 of the curve —
+ * without building any of them; stops counting past `budget`, so the cost stays bounded by the limit.
+ */
+function chordsOfCurve(curve: number[], toleranceMm: number, budget: number): number {
+  const flat = 16 * toleranceMm * toleranceMm;
+  const stack: [number[], number][] = [[curve, 1]];
+  let chords = 0;
+  while (stack.length && chords <= budget) {
+    const [v, span] = stack.pop()!;
+    const ux = 3 * v[2] - 2 * v[0] - v[6];
+    const uy = 3 * v[3] - 2 * v[1] - v[7];
+    const vx = 3 * v[4] - 2 * v[6] - v[0];
+    const vy = 3 * v[5] - 2 * v[7] - v[1];
+    if (span <= 1 / 256 || Math.max(ux * ux, vx * vx) + Math.max(uy * uy, vy * vy) <= flat) {
+      chords++;
+      continue;
+    }
+    // de Casteljau at t = 0.5
+    const [x0, y0, x1, y1, x2, y2, x3, y3] = v;
+    const ax = (x0 + x1) / 2, ay = (y0 + y1) / 2, bx = (x1 + x2) / 2, by = (y1 + y2) / 2, cx = (x2 + x3) / 2, cy = (y2 + y3) / 2;
+    const dx = (ax + bx) / 2, dy = (ay + by) / 2, ex = (bx + cx) / 2, ey = (by + cy) / 2, fx = (dx + ex) / 2, fy = (dy + ey) / 2;
+    stack.push([[fx, fy, ex, ey, cx, cy, x3, y3], span / 2], [[x0, y0, ax, ay, dx, dy, fx, fy], span / 2]);
+  }
+  return chords;
+}
+
+/** The vertices paper.js's flatten makes of a compound path at `toleranceMm`, counted without making them; stops past `max`. */
+export function flattenedVertexCount(item: paper.CompoundPath, toleranceMm: number, max = Number.POSITIVE_INFINITY): number {
+  let vertices = 0;
+  for (const child of item.children as paper.Path[]) {
+    for (const curve of child.curves) {
+      if (vertices > max) return vertices;
+      vertices += curve.isStraight() ? 1 : chordsOfCurve(curve.values, toleranceMm, max - vertices);
+    }
+  }
+  return vertices;
+}
+
+/**
+ * Flattens path data with paper.js into rings (mm); curves and arcs become chords within `toleranceMm`.
+ * Refuses (outlineTooComplex) before flattening when that would make more than `maxVertices`.
+ */
+export function flattenPathData(d: string, toleranceMm = FLATTEN_TOLERANCE_MM, maxVertices = Number.POSITIVE_INFINITY): Ring[] {
   const ps = paperScope();
   const item = new ps.CompoundPath({ pathData: d, insert: false });
+  if (flattenedVertexCount(item, toleranceMm, maxVertices) > maxVertices) {
+    item.remove();
+    throw layoutError("stamp.outline", "outlineTooComplex", { max: maxVertices });
+  }
   item.flatten(toleranceMm);
   const rings: Ring[] = [];
   for (const child of item.children as paper.Path[]) {
@@ -185,13 +250,16 @@ export function buildStampShape(stamp: StampInput): StampShape {
   }
 
   const d = stamp.outline.trim();
-  const errorAt = pathDataErrorAt(d);
-  if (errorAt >= 0) throw layoutError("stamp.outline", "outlineInvalid", { position: errorAt });
+  // The request schema caps the bytes (OUTLINE_MAX_BYTES); the segments are counted here, before paper.js parses anything.
+  const scan = scanPathData(d, OUTLINE_MAX_SEGMENTS);
+  if (scan.segments > OUTLINE_MAX_SEGMENTS) throw layoutError("stamp.outline", "outlineTooManySegments", { max: OUTLINE_MAX_SEGMENTS });
+  if (scan.errorAt >= 0) throw layoutError("stamp.outline", "outlineInvalid", { position: scan.errorAt });
 
   let flat: Ring[];
   try {
-    flat = flattenPathData(d);
-  } catch {
+    flat = flattenPathData(d, FLATTEN_TOLERANCE_MM, OUTLINE_MAX_VERTICES);
+  } catch (error) {
+    if (error instanceof LayoutInputError) throw error;
     throw layoutError("stamp.outline", "outlineInvalid", { position: 0 });
   }
   const vertexCount = flat.reduce((n, r) => n + r.length, 0);

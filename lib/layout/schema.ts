@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "@/lib/zod";
 import { issueKey } from "@/lib/errors";
 import {
   CLOTH_WIDTH_MAX_MM,
@@ -6,7 +6,7 @@ import {
   DIAGONAL_MAX_DENOMINATOR,
   GAP_MAX_MM,
   MIN_STEP_MM,
-  OUTLINE_MAX_CHARS,
+  OUTLINE_MAX_BYTES,
   PIECES_MAX,
   ROTATION_ORDERS,
   RUN_LENGTH_MAX_MM,
@@ -95,8 +95,17 @@ const stampShape = {
   heightMm: mm(STAMP_SIDE_MIN_MM, STAMP_SIDE_MAX_MM),
   /** Fraction of the footprint that carries wax, used when there is no outline. */
   coverage: z.number(keyed).gt(0, keyed).max(1, keyed).optional(),
-  /** SVG path data in mm, origin at the footprint's top-left corner. */
-  outline: z.string(keyed).trim().min(1, keyed).max(OUTLINE_MAX_CHARS, keyed).optional(),
+  /** SVG path data in mm, origin at the footprint's top-left corner; its size is capped before anything else reads it. */
+  outline: z
+    .string(keyed)
+    .refine((v) => new TextEncoder().encode(v).length <= OUTLINE_MAX_BYTES, {
+      message: "validation.outlineTooLarge",
+      params: { max: OUTLINE_MAX_BYTES },
+      abort: true,
+    })
+    .trim()
+    .min(1, keyed)
+    .optional(),
   fillRule: z.enum(FILL_RULES, keyed).default("nonzero"),
 };
 

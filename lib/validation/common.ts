@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "@/lib/zod";
 
 // Building blocks every input schema shares, so a rule (what a date is, what a blank field means)
 // is written once.

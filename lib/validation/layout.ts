@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "@/lib/zod";
 import { issueKey } from "@/lib/errors";
 import { checkArrangement, checkGap, FILL_RULES, layoutShape, stampSizeSchema, type StampSize } from "@/lib/layout/schema";
 

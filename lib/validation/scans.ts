@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "@/lib/zod";
 import { stampCodeSchema } from "./stamps";
 
 // Inputs of the scan routes (app/api/v1/stamps/[code]/scans/…), shared by the routes, the uploader and the tests.

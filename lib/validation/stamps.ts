@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "@/lib/zod";
 import { todayIso } from "@/lib/dates";
 import { boolParam, idParamSchema, isoDate, optionalText, requiredText } from "./common";
 

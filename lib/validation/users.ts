@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "@/lib/zod";
 import { roles } from "@/lib/permissions";
 
 const email = z.string().trim().toLowerCase().max(254, "validation.tooLong").pipe(z.email("validation.email"));

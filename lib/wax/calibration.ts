@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "@/lib/zod";
 import { keyed, type WaxParams } from "./errors";
 import { AREA_PER_METRE_MAX_M2, CALIBRATION_MIN_USES_DEFAULT, MATERIAL_REF_MAX_CHARS, PASSES_MAX, RUN_MAX_METRES, USE_MAX_G } from "./limits";
 

@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "@/lib/zod";
 import { keyed, parseWax, type WaxWarning } from "./errors";
 import {
   AREA_PER_METRE_MAX_M2,

@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "@/lib/zod";
 import { keyed } from "./errors";
 import {
   DENSITY_MAX_G_PER_CM3,

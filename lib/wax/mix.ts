@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "@/lib/zod";
 import { keyed } from "./errors";
 import { materialKey } from "./materials";
 import { MATERIAL_REF_MAX_CHARS, MIX_MAX_COMPONENTS, MIX_SUM_TOLERANCE_PCT } from "./limits";

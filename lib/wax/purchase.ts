@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "@/lib/zod";
 import { keyed } from "./errors";
 import { MATERIAL_REF_MAX_CHARS, NAME_MAX_CHARS, PRICE_MAX_PER_KG, STOCK_MAX_KG } from "./limits";
 

@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "@/lib/zod";
 import { WaxInputError, keyed, parseWax, type WaxIssue } from "./errors";
 import { NAME_MAX_CHARS, NOTES_MAX_CHARS, WORKING_MAX_C, WORKING_MIN_C } from "./limits";
 import { materialKey, resolveMaterial, type WaxMaterial } from "./materials";

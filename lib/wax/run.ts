@@ -1,4 +1,4 @@
-import { z } from "zod";
+import { z } from "@/lib/zod";
 import { keyed, parseWax } from "./errors";
 import { KODI_PIECES, PIECE_LENGTH_MAX_MM, PIECES_MAX, RUN_MAX_METRES } from "./limits";
 

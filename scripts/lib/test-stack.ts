@@ -60,7 +60,7 @@ export async function startTestApp(dataDir: string): Promise<TestApp> {
     stack = await startStack(dataDir, { quiet: true });
     await runMigrations(env.DATABASE_URL!);
     buildIfStale();
-    app = spawn(join(projectRoot, "node_modules", ".bin", "next"), ["start", "-p", env.PORT!, "-H", "127.0.0.1"], {
+    app = spawn(join(projectRoot, "node_modules", ".bin", "tsx"), [join(projectRoot, "scripts", "server.ts"), "--port", env.PORT!, "--host", "127.0.0.1"], {
       stdio: ["ignore", "ignore", "inherit"],
       env,
       cwd: projectRoot,

@@ -5,6 +5,7 @@ import { PageHeader, Panel } from "@/components/ui/panel";
 import { requirePageActor } from "@/lib/session";
 import { ApiTokens } from "./api-tokens";
 import { ProfileForm } from "./profile-form";
+import { SessionsPanel } from "./sessions-panel";
 
 export async function generateMetadata(): Promise<Metadata> {
   return { title: (await getTranslations("account"))("title") };
@@ -17,9 +18,12 @@ export default async function AccountPage() {
     <>
       <PageHeader title={t("account.title")} intro={`${actor.email} · ${t(`roles.${actor.role}.name`)}`} />
       <div className="grid gap-6 lg:grid-cols-[1fr_2fr]">
-        <Panel title={t("account.profile")}>
-          <ProfileForm name={actor.name} unitSystem={actor.unitSystem} />
-        </Panel>
+        <div className="space-y-6">
+          <Panel title={t("account.profile")}>
+            <ProfileForm name={actor.name} unitSystem={actor.unitSystem} />
+          </Panel>
+          <SessionsPanel actor={actor} />
+        </div>
         <Panel title={t("account.tokens.title")} intro={t("account.tokens.intro")}>
           <ApiTokens />
           <p className="mt-4 text-sm">

@@ -2,7 +2,7 @@
 
 import { getTranslations } from "next-intl/server";
 import { revalidatePath } from "next/cache";
-import { z } from "zod";
+import { z } from "@/lib/zod";
 import type { FormState } from "@/lib/actions/form-state";
 import { runForm } from "@/lib/actions/run-form";
 import { inviteUser, resendInvitation, sendPasswordResetFor, updateUser } from "@/lib/data/users";

@@ -12,6 +12,6 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
   if (await currentActor()) redirect("/");
   const { next, notice } = await searchParams;
   const t = await getTranslations("signin");
-  const notices: Record<string, string> = { "password-set": t("passwordSet") };
+  const notices: Record<string, string> = { "password-set": t("passwordSet"), "signed-out-everywhere": t("signedOutEverywhere") };
   return <SignInForm next={next} notice={notice ? notices[notice] : undefined} />;
 }

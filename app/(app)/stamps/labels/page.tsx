@@ -12,6 +12,7 @@ import { requirePageActor } from "@/lib/session";
 import { stampUrl } from "@/lib/stamps/codes";
 import { queryObject } from "@/lib/validation/common";
 import { stampCodeSchema, stampListQuerySchema } from "@/lib/validation/stamps";
+import { parseInput } from "@/lib/validation/parse";
 import { PrintButton } from "./print-button";
 
 export async function generateMetadata(): Promise<Metadata> {
@@ -36,8 +37,7 @@ export default async function LabelsPage({ searchParams }: Props) {
     const locations = (await listLocations(actor)).filter((l) => !site || l.site === site);
     const labels = await Promise.all(locations.map(async (l) => ({ ...l, svg: await qr(`${appUrl.replace(/\/$/, "")}/stamps?location=${l.id}`) })));
     return (
-      <>
-        <style>{"@page { size: A4; margin: 10mm; }"}</style>
+      <div className="print-shelf-labels" data-testid="label-sheet">
         <LabelsHeader title={t("labels.shelfTitle")} intro={t("labels.shelfIntro", { count: labels.length })} />
         {labels.length === 0 ? <Notice>{t("labels.noneShelf")}</Notice> : null}
         <div className="grid grid-cols-2 gap-[4mm] print:gap-[3mm]" data-testid="labels">
@@ -52,20 +52,20 @@ export default async function LabelsPage({ searchParams }: Props) {
             </article>
           ))}
         </div>
-      </>
+      </div>
     );
   }
 
   const codes = (params.get("codes") ?? "").split(",").map((c) => stampCodeSchema.safeParse(c)).filter((r) => r.success).map((r) => r.data);
-  const parsed = stampListQuerySchema.safeParse(queryObject(params));
+  const parsed = parseInput(stampListQuerySchema, queryObject(params));
   const query = parsed.success ? parsed.data : {};
   let stamps = await listAllStamps(actor, codes.length ? { codes } : query, MAX_LABELS + 1);
   const tooMany = stamps.length > MAX_LABELS;
   stamps = stamps.slice(0, MAX_LABELS);
   const labels = await Promise.all(stamps.map(async (s) => ({ ...s, svg: await qr(stampUrl(appUrl, s.code)) })));
+  // A4 with 8 mm margins when printed: the named page stamp-labels in app/globals.css.
   return (
-    <>
-      <style>{"@page { size: A4; margin: 8mm; }"}</style>
+    <div className="print-stamp-labels" data-testid="label-sheet">
       <LabelsHeader title={t("labels.title")} intro={t("labels.intro", { count: labels.length })} />
       {tooMany ? <Notice tone="warning" className="mb-4 print:hidden">{t("labels.tooMany", { max: MAX_LABELS })}</Notice> : null}
       {labels.length === 0 ? <Notice>{t("labels.none")}</Notice> : null}
@@ -82,7 +82,7 @@ export default async function LabelsPage({ searchParams }: Props) {
           </article>
         ))}
       </div>
-    </>
+    </div>
   );
 }
 
