@@ -29,7 +29,7 @@ describe("the Content-Security-Policy", () => {
     const page = await (await browser.newContext()).newPage();
     await page.goto(`${appUrl}/signin`);
     // What an injection would try: an inline event handler and a style attribute in parsed markup.
-    await page.evaluate(() => document.body.insertAdjacentHTML("beforeend", '<img src="/no-such-image.png" onerror="window.__injected = true"><p style="color: red">x</p>'));
+    await page.evaluate(() => document.body.insertAdjacentHTML("beforeend", '<img alt="" src="/no-such-image.png" onerror="window.__injected = true"><p style="color: red">x</p>'));
     await expect.poll(() => takeCspViolations().length).toBeGreaterThanOrEqual(1);
     expect(await page.evaluate(() => (window as unknown as { __injected?: boolean }).__injected)).toBeUndefined();
     takeCspViolations();
