@@ -7,6 +7,7 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { initialFormState, type FormState } from "@/lib/actions/form-state";
+import { ratioToPercent } from "@/lib/stamps/coverage";
 import { lengthInput, massInput, type UnitSystem } from "@/lib/stamps/format";
 import { stampConditions } from "@/lib/validation/stamps";
 
@@ -171,16 +172,19 @@ export function StampForm({
         <Field id="stamp-made" label={t("stamps.fields.madeOn")} errors={e.madeOn}>
           {(aria) => <input {...aria} name="madeOn" type="date" defaultValue={v("madeOn", initial.madeOn ?? "")} />}
         </Field>
-        <Field id="stamp-coverage" label={t("stamps.form.coverage")} hint={t("stamps.form.coverageHint")} errors={e.coveragePct}>
-          {(aria) => (
-            <input
-              {...aria}
-              name="coveragePct"
-              inputMode="decimal"
-              defaultValue={v("coveragePct", initial.coverageRatio !== null ? String(Number((initial.coverageRatio * 100).toFixed(2))) : "")}
-            />
-          )}
-        </Field>
+        <div className="space-y-2">
+          <Field id="stamp-coverage" label={t("stamps.form.coverage")} hint={t("stamps.form.coverageHint")} errors={e.coveragePct}>
+            {(aria) => (
+              <input {...aria} name="coveragePct" inputMode="decimal" defaultValue={v("coveragePct", initial.coverageRatio !== null ? String(ratioToPercent(initial.coverageRatio)) : "")} />
+            )}
+          </Field>
+          {state.data?.lowCoverage ? (
+            <label className="flex items-start gap-2 text-sm text-stone-800">
+              <input type="checkbox" name="confirmLowCoverage" className="mt-0.5" />
+              {t("stamps.form.coverageKeepLow", { pct: state.values?.coveragePct ?? "" })}
+            </label>
+          ) : null}
+        </div>
       </fieldset>
 
       <fieldset className="grid gap-4 md:grid-cols-2">

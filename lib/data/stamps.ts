@@ -4,6 +4,7 @@ import { db, type Transaction } from "@/db";
 import { checkouts, damageReports, locations, stampEvents, stamps, users, type Checkout, type Location, type Stamp } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
+import { LOW_COVERAGE_RATIO } from "@/lib/stamps/coverage";
 import { canBeCheckedOut, canChangeCondition, isRepair, needsToBeIn, type Condition } from "@/lib/stamps/condition";
 import type {
   CheckoutInput,
@@ -144,6 +145,8 @@ export function stampFilter(query: Partial<StampListQuery> & { codes?: string[] 
   if (query.site) where.push(eq(locations.site, query.site));
   if (query.face) where.push(eq(stamps.face, query.face));
   if (query.tag) where.push(sql`${stamps.tags} @> ARRAY[${query.tag}]::text[]`);
+  if (query.lowCoverage === true) where.push(lt(stamps.coverageRatio, LOW_COVERAGE_RATIO));
+  if (query.lowCoverage === false) where.push(or(isNull(stamps.coverageRatio), gte(stamps.coverageRatio, LOW_COVERAGE_RATIO)));
   if (query.out === true) where.push(sql`${checkouts.id} IS NOT NULL`);
   if (query.out === false) where.push(isNull(checkouts.id));
   if (query.overdue === true) where.push(lt(checkouts.dueOn, todayIso()));
@@ -701,17 +704,18 @@ export async function listBorrowers(actor: Actor): Promise<{ id: string; name: s
   return db.select({ id: users.id, name: users.name, email: users.email }).from(users).where(eq(users.disabled, false)).orderBy(asc(users.name));
 }
 
-/** For the overview: how many stamps, how many out, overdue, and waiting for repair. */
+/** For the overview: how many stamps, how many out, overdue, waiting for repair, and with a coverage to check. */
 export async function stampCounts(actor: Actor) {
   assertCan(actor, "data:read");
   const today = todayIso();
-  const [[all], [out], [repair]] = await Promise.all([
+  const [[all], [out], [repair], [lowCoverage]] = await Promise.all([
     db.select({ n: count() }).from(stamps).where(ne(stamps.condition, "retired")),
     db
       .select({ n: count(), overdue: sql<number>`count(*) FILTER (WHERE ${checkouts.dueOn} < ${today})` })
       .from(checkouts)
       .where(isNull(checkouts.returnedAt)),
     db.select({ n: count() }).from(stamps).where(inArray(stamps.condition, ["needs_repair", "in_repair"])),
+    db.select({ n: count() }).from(stamps).where(lt(stamps.coverageRatio, LOW_COVERAGE_RATIO)),
   ]);
-  return { active: Number(all.n), out: Number(out.n), overdue: Number(out.overdue), repair: Number(repair.n) };
+  return { active: Number(all.n), out: Number(out.n), overdue: Number(out.overdue), repair: Number(repair.n), lowCoverage: Number(lowCoverage.n) };
 }

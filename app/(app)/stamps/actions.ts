@@ -11,6 +11,7 @@ import { sendOverdueReminders } from "@/lib/data/stamp-mail";
 import { AppError } from "@/lib/errors";
 import { changeCondition, checkOutStamp, createStamp, deleteStamp, reportDamage, returnStamp, updateStamp } from "@/lib/data/stamps";
 import { requirePermission } from "@/lib/session";
+import { isLowCoverage, ratioToPercent } from "@/lib/stamps/coverage";
 import { inchesToMm, ouncesToGrams } from "@/lib/units";
 import {
   checkoutSchema,
@@ -74,13 +75,35 @@ function stampInput(f: FormData, mode: "create" | "update") {
   return input;
 }
 
-/** The percentage field's errors show under its own name. */
-function renameCoverage(state: FormState): FormState {
-  if (state.fieldErrors?.coverageRatio) {
-    state.fieldErrors.coveragePct = state.fieldErrors.coverageRatio;
-    delete state.fieldErrors.coverageRatio;
+/**
+ * The form takes coverage in %, the schema a ratio: the percentage field's errors show under its own
+ * name and speak of percent, so the person sees one unit on screen and in the message.
+ */
+async function renameCoverage(state: FormState): Promise<FormState> {
+  const errors = state.fieldErrors?.coverageRatio;
+  if (errors) {
+    const t = await getTranslations();
+    const ratioMessage = t("validation.coverageRatio");
+    state.fieldErrors!.coveragePct = errors.map((m) => (m === ratioMessage ? t("validation.coveragePct") : m));
+    delete state.fieldErrors!.coverageRatio;
   }
   return state;
+}
+
+/**
+ * Coverage under 1 % is saved only when the person ticked "keep it" (confirmLowCoverage): until then the
+ * form says what the value means and what they may have meant, beside the field.
+ */
+async function lowCoverageUnconfirmed(formData: FormData, ratio: number | null | undefined): Promise<FormState | null> {
+  if (!isLowCoverage(ratio) || formData.get("confirmLowCoverage") === "on") return null;
+  const t = await getTranslations();
+  const pct = ratioToPercent(ratio);
+  return {
+    status: "error",
+    message: t("common.formHasErrors"),
+    fieldErrors: { coveragePct: [t("validation.coverageLow", { pct, meant: ratioToPercent(ratio * 100) })] },
+    data: { lowCoverage: "1" },
+  };
 }
 
 export async function createStampAction(_prev: FormState, formData: FormData): Promise<FormState> {
@@ -90,6 +113,8 @@ export async function createStampAction(_prev: FormState, formData: FormData): P
     createStampSchema,
     async (input) => {
       const actor = await requirePermission("stamps:write");
+      const unconfirmed = await lowCoverageUnconfirmed(formData, input.coverageRatio);
+      if (unconfirmed) return unconfirmed;
       code = (await createStamp(actor, input)).code;
     },
     (f) => stampInput(f, "create"),
@@ -111,6 +136,8 @@ export async function updateStampAction(_prev: FormState, formData: FormData): P
     async (input) => {
       const actor = await requirePermission("stamps:write");
       if (!original.success) return { status: "error", message: (await getTranslations())("errors.notFound") };
+      const unconfirmed = await lowCoverageUnconfirmed(formData, input.coverageRatio);
+      if (unconfirmed) return unconfirmed;
       try {
         code = (await updateStamp(actor, original.data, input)).code;
       } catch (error) {

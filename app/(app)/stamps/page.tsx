@@ -37,6 +37,7 @@ export default async function StampShelfPage() {
           { key: "out", count: counts.out, href: "/stamps/out" },
           { key: "overdue", count: counts.overdue, href: "/stamps?overdue=true", warn: counts.overdue > 0 },
           { key: "repair", count: counts.repair, href: "/stamps?condition=needs_repair,in_repair", warn: counts.repair > 0 },
+          ...(counts.lowCoverage > 0 ? [{ key: "lowCoverage", count: counts.lowCoverage, href: "/stamps?lowCoverage=true", warn: true }] : []),
         ].map((c) => (
           <li key={c.key}>
             <Link href={c.href} className={c.warn ? "rounded-full bg-amber-100 px-3 py-1 text-amber-900 hover:underline" : "rounded-full bg-stone-200 px-3 py-1 text-stone-800 hover:underline"}>

@@ -25,6 +25,7 @@ import { Notice } from "@/components/ui/notice";
 import { SortableTableHead } from "@/components/ui/sortable-table-head";
 import type { LocationDto } from "@/lib/data/locations";
 import type { StampListItem } from "@/lib/data/stamps";
+import { isLowCoverage } from "@/lib/stamps/coverage";
 import type { UnitSystem } from "@/lib/stamps/format";
 import { useStamps } from "@/lib/swr/use-stamps";
 import { inchesToMm, mmToInches } from "@/lib/units";
@@ -48,8 +49,8 @@ const sortKeyOf: Record<string, string> = {
 };
 const columnOfSortKey = Object.fromEntries(Object.entries(sortKeyOf).map(([c, k]) => [k, c]));
 
-const defaultHidden: ColumnVisibilityState = { maker: false, madeOn: false, tags: false, impressions: false, updated: false, face: false };
-const filterKeys = ["q", "condition", "site", "location", "face", "out", "overdue", "tag", "minWidthMm", "maxWidthMm", "minHeightMm", "maxHeightMm"];
+const defaultHidden: ColumnVisibilityState = { maker: false, madeOn: false, tags: false, impressions: false, updated: false, face: false, coverage: false };
+const filterKeys = ["q", "condition", "site", "location", "face", "out", "overdue", "tag", "lowCoverage", "minWidthMm", "maxWidthMm", "minHeightMm", "maxHeightMm"];
 
 // Column choice lives in the browser (per person and device), read without a hydration mismatch.
 const columnsKey = "capgrid.stamps.columns";
@@ -159,13 +160,17 @@ export function StampsTable({
     setParams({ page: next.pageIndex > 0 ? String(next.pageIndex + 1) : null, pageSize: next.pageSize !== 50 ? String(next.pageSize) : null }, next.pageSize !== pageSize);
   };
   const storedColumns = useSyncExternalStore(columnsStore.subscribe, columnsStore.get, columnsStore.server);
+  const lowCoverage = params.get("lowCoverage") === "true";
   const columnVisibility: ColumnVisibilityState = useMemo(() => {
+    let chosen = defaultHidden;
     try {
-      return storedColumns ? { ...defaultHidden, ...JSON.parse(storedColumns) } : defaultHidden;
+      if (storedColumns) chosen = { ...defaultHidden, ...JSON.parse(storedColumns) };
     } catch {
-      return defaultHidden;
+      // an unreadable choice falls back to the default columns
     }
-  }, [storedColumns]);
+    // Checking low coverage needs the value in view.
+    return lowCoverage ? { ...chosen, coverage: true } : chosen;
+  }, [storedColumns, lowCoverage]);
 
   const columns = useMemo(
     () =>
@@ -242,6 +247,19 @@ export function StampsTable({
               ))}
             </span>
           ),
+        }),
+        column.accessor((row) => row.coverageRatio ?? -1, {
+          id: "coverage",
+          header: () => t("stamps.columns.coverage"),
+          enableSorting: false,
+          cell: ({ row }) =>
+            row.original.coverageRatio === null ? (
+              <span className="text-stone-400">—</span>
+            ) : (
+              <span className={cn("tabular-nums", isLowCoverage(row.original.coverageRatio) && "font-medium text-amber-800")}>
+                {format.number(row.original.coverageRatio, { style: "percent", maximumFractionDigits: 2 })}
+              </span>
+            ),
         }),
         column.accessor("impressionsCount", {
           id: "impressions",
@@ -393,6 +411,14 @@ export function StampsTable({
       <div className="flex flex-wrap items-center justify-between gap-3">
         <p className="text-sm text-stone-600" data-testid="stamp-count" aria-live="polite">
           {isLoading ? t("common.loading") : t("stamps.table.count", { first, last, total })}
+          {lowCoverage ? (
+            <span className="ml-2 rounded bg-amber-100 px-1.5 text-xs text-amber-900">
+              {t("stamps.table.lowCoverageFilter")}{" "}
+              <button type="button" className="underline" onClick={() => setParams({ lowCoverage: null })}>
+                {t("stamps.filters.remove")}
+              </button>
+            </span>
+          ) : null}
           {params.get("tag") ? (
             <span className="ml-2 rounded bg-soga-50 px-1.5 text-xs text-soga-700">
               {t("stamps.table.tagFilter", { tag: params.get("tag")! })}{" "}

@@ -15,6 +15,7 @@ import { AppError } from "@/lib/errors";
 import { can } from "@/lib/permissions";
 import { requirePageActor } from "@/lib/session";
 import { isoDateAfter } from "@/lib/stamps/codes";
+import { isLowCoverage } from "@/lib/stamps/coverage";
 import { nextConditions } from "@/lib/stamps/condition";
 import { stampCodeSchema } from "@/lib/validation/stamps";
 import { CheckoutForm, ConditionForm, DamageForm, DeleteStamp, ReturnForm } from "./stamp-panels";
@@ -86,7 +87,18 @@ export default async function StampPage({ params, searchParams }: Props) {
         <span className="text-amber-800">{t("stamps.record.noLocation")}</span>
       ),
     ],
-    [t("stamps.fields.coverageRatio"), stamp.coverageRatio !== null ? format.number(stamp.coverageRatio, { style: "percent", maximumFractionDigits: 1 }) : none],
+    [
+      t("stamps.fields.coverageRatio"),
+      stamp.coverageRatio === null ? (
+        none
+      ) : isLowCoverage(stamp.coverageRatio) ? (
+        <span className="text-amber-800" data-testid="coverage-low">
+          {format.number(stamp.coverageRatio, { style: "percent", maximumFractionDigits: 2 })} · {t("stamps.record.coverageLow")}
+        </span>
+      ) : (
+        format.number(stamp.coverageRatio, { style: "percent", maximumFractionDigits: 1 })
+      ),
+    ],
     [t("stamps.fields.impressionsCount"), format.number(stamp.impressionsCount)],
     [
       t("stamps.fields.tags"),
