@@ -9,7 +9,7 @@ import { listLocations } from "@/lib/data/locations";
 import { listAllStamps } from "@/lib/data/stamps";
 import { env } from "@/lib/env";
 import { requirePageActor } from "@/lib/session";
-import { stampUrl } from "@/lib/stamps/codes";
+import { shelfUrl, stampUrl } from "@/lib/stamps/codes";
 import { queryObject, stampCodeSchema, stampListQuerySchema } from "@/lib/validation/stamps";
 import { PrintButton } from "./print-button";
 
@@ -33,7 +33,7 @@ export default async function LabelsPage({ searchParams }: Props) {
   if (params.get("kind") === "shelf") {
     const site = params.get("site");
     const locations = (await listLocations(actor)).filter((l) => !site || l.site === site);
-    const labels = await Promise.all(locations.map(async (l) => ({ ...l, svg: await qr(`${appUrl.replace(/\/$/, "")}/stamps?location=${l.id}`) })));
+    const labels = await Promise.all(locations.map(async (l) => ({ ...l, svg: await qr(shelfUrl(appUrl, l.id)) })));
     return (
       <>
         <style>{"@page { size: A4; margin: 10mm; }"}</style>
