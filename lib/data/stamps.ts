@@ -597,7 +597,7 @@ export async function reportDamage(actor: Actor, code: string, input: DamageRepo
     await recordEvent(tx, stamp.id, actor, { kind: "damage_reported", to: input.kind, note: input.note ?? null });
     return { stamp, report };
   });
-  await notifyKeepersOfDamage({ code: stamp.code, name: stamp.name, kind: input.kind, note: input.note ?? null, reporter: actor.name });
+  await notifyKeepersOfDamage({ code: stamp.code, name: stamp.name, kind: input.kind, note: input.note ?? null, reporter: actor.name, at: report.reportedAt });
   return { id: report.id, kind: report.kind, reportedAt: report.reportedAt.toISOString() };
 }
 

@@ -8,10 +8,11 @@ import { hashSecret, newSecret } from "@/lib/auth/secrets";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
 import { pickLocale } from "@/lib/i18n/config";
-import { translator } from "@/lib/i18n/translator";
+import { dateFormat, translator } from "@/lib/i18n/translator";
 import { sendMail } from "@/lib/mail";
 import { assertCan, type Actor } from "@/lib/authz";
 import type { InviteUserInput, UpdateUserInput } from "@/lib/validation/users";
+import { workshopTimeZone } from "./settings";
 
 export const linkLifetime = { inviteHours: 72, resetMinutes: 60 } as const;
 
@@ -52,10 +53,20 @@ async function findUser(id: string): Promise<User> {
 async function issueLink(userId: string, kind: "invite" | "reset") {
   const secret = newSecret();
   const lifetimeMs = kind === "invite" ? linkLifetime.inviteHours * 3_600_000 : linkLifetime.resetMinutes * 60_000;
+  const expiresAt = new Date(Date.now() + lifetimeMs);
   // A new link replaces any older unused one of the same kind.
   await db.delete(userTokens).where(and(eq(userTokens.userId, userId), eq(userTokens.kind, kind), isNull(userTokens.usedAt)));
-  await db.insert(userTokens).values({ userId, kind, tokenHash: hashSecret(secret), expiresAt: new Date(Date.now() + lifetimeMs) });
-  return `${env().APP_URL.replace(/\/$/, "")}/set-password?token=${encodeURIComponent(secret)}`;
+  await db.insert(userTokens).values({ userId, kind, tokenHash: hashSecret(secret), expiresAt });
+  return { link: `${env().APP_URL.replace(/\/$/, "")}/set-password?token=${encodeURIComponent(secret)}`, expiresAt };
+}
+
+/** The invitation mail for a user, with a new link. */
+async function sendInvitation(user: User, inviter: string) {
+  const locale = pickLocale(user.locale);
+  const t = translator(locale);
+  const { link, expiresAt } = await issueLink(user.id, "invite");
+  const mail = invitationMail(t, dateFormat(locale, await workshopTimeZone()), { name: user.name, inviter, role: t(`roles.${user.role}.name`), link, hours: linkLifetime.inviteHours, expiresAt });
+  await sendMail({ to: user.email, ...mail });
 }
 
 export async function inviteUser(actor: Actor, input: InviteUserInput): Promise<UserDto> {
@@ -63,10 +74,7 @@ export async function inviteUser(actor: Actor, input: InviteUserInput): Promise<
   const [existing] = await db.select({ id: users.id }).from(users).where(eq(sql`lower(${users.email})`, input.email)).limit(1);
   if (existing) throw new AppError("emailTaken", {}, { email: ["validation.emailTaken"] });
   const [user] = await db.insert(users).values({ email: input.email, name: input.name, role: input.role }).returning();
-  const t = translator(pickLocale(user.locale));
-  const link = await issueLink(user.id, "invite");
-  const mail = invitationMail(t, { name: user.name, inviter: actor.name, role: t(`roles.${user.role}.name`), link, hours: linkLifetime.inviteHours });
-  await sendMail({ to: user.email, ...mail });
+  await sendInvitation(user, actor.name);
   return toUserDto(user);
 }
 
@@ -74,9 +82,7 @@ export async function resendInvitation(actor: Actor, id: string) {
   assertCan(actor, "users:manage");
   const user = await findUser(id);
   if (user.passwordHash) throw new AppError("conflict");
-  const t = translator(pickLocale(user.locale));
-  const link = await issueLink(user.id, "invite");
-  await sendMail({ to: user.email, ...invitationMail(t, { name: user.name, inviter: actor.name, role: t(`roles.${user.role}.name`), link, hours: linkLifetime.inviteHours }) });
+  await sendInvitation(user, actor.name);
 }
 
 export async function updateUser(actor: Actor, id: string, patch: UpdateUserInput): Promise<UserDto> {
@@ -99,9 +105,10 @@ export async function updateUser(actor: Actor, id: string, patch: UpdateUserInpu
 export async function requestPasswordReset(email: string) {
   const [user] = await db.select().from(users).where(eq(sql`lower(${users.email})`, email.toLowerCase())).limit(1);
   if (!user || user.disabled) return;
-  const t = translator(pickLocale(user.locale));
-  const link = await issueLink(user.id, "reset");
-  await sendMail({ to: user.email, ...passwordResetMail(t, { name: user.name, link, minutes: linkLifetime.resetMinutes }) });
+  const locale = pickLocale(user.locale);
+  const { link, expiresAt } = await issueLink(user.id, "reset");
+  const mail = passwordResetMail(translator(locale), dateFormat(locale, await workshopTimeZone()), { name: user.name, link, minutes: linkLifetime.resetMinutes, expiresAt });
+  await sendMail({ to: user.email, ...mail });
 }
 
 export async function sendPasswordResetFor(actor: Actor, id: string) {

@@ -288,6 +288,7 @@ export async function sendRemindersAction(_prev: FormState, formData: FormData):
     revalidatePath("/stamps/out");
     const t = await getTranslations();
     const parts = [t("overdue.sent", { count: result.sent.length })];
+    if (result.skipped.length) parts.push(t("overdue.skipped", { count: result.skipped.length, hours: result.gapHours, names: result.skipped.map((s) => `${s.borrowerName} (${s.code})`).join(", ") }));
     if (result.withoutEmail.length) parts.push(t("overdue.withoutEmail", { names: result.withoutEmail.map((w) => `${w.borrowerName} (${w.code})`).join(", ") }));
     if (result.failed.length) parts.push(t("overdue.failed", { count: result.failed.length }));
     return { status: result.failed.length ? "error" : "success", message: parts.join(" ") };

@@ -33,7 +33,7 @@ beforeAll(async () => {
     for (const seed of [1, 2])
       for (const style of ["print", "face"] as const) list.push({ label: `${family}/${seed}/${style}`, family, style, hashes: await hashes(await render(family, seed, style), style) });
   art = list;
-}, 60_000);
+}, 120_000);
 
 describe("look-alikes among the demo art", () => {
   it("leave out every motif of another family, prints and face photos alike (a lotus photo is no four-petal drawing)", () => {
@@ -60,14 +60,14 @@ describe("look-alikes among the demo art", () => {
       ["smaller", "same"],
     ]);
     for (const m of found) expect(m.distance).toBeLessThanOrEqual(LOOK_ALIKE_MAX_BITS - 4);
-  });
+  }, 30_000);
 
   it.each(["lotus", "vine", "bands"] as const)("call the mirrored %s motif (a back-face twin) a mirror twin", async (family) => {
     const base = art.find((a) => a.label === `${family}/2/print`)!.hashes;
     const twin = await hashes(await sharp(await render(family, 2, "print")).flop().png().toBuffer(), "print");
     expect(nearest(base, [{ id: "twin", hash: twin.hash }], 1, options)).toEqual([{ id: "twin", distance: expect.any(Number), orientation: "mirrored" }]);
     expect(hamming(base.hash, twin.hash) - hamming(base.mirroredHash, twin.hash)).toBeGreaterThanOrEqual(MIRROR_TWIN_MARGIN_BITS * 2);
-  });
+  }, 30_000);
 });
 
 describe("the mirror-twin rule, on hand-made hashes", () => {

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { getFormatter, getTranslations } from "next-intl/server";
 import { OutBadge } from "@/components/stamps/condition-badge";
 import { PageHeader, Panel } from "@/components/ui/panel";
+import { REMINDER_GAP_HOURS } from "@/lib/data/stamp-mail";
 import { listCheckouts } from "@/lib/data/stamps";
 import { can } from "@/lib/permissions";
 import { requirePageActor } from "@/lib/session";
@@ -16,13 +17,16 @@ export default async function OutPage() {
   const actor = await requirePageActor();
   const [t, format, out] = await Promise.all([getTranslations(), getFormatter(), listCheckouts(actor)]);
   const overdue = out.filter((c) => c.overdue);
+  const remindedSince = Date.now() - REMINDER_GAP_HOURS * 3_600_000;
+  const recentlyReminded = overdue.filter((c) => c.borrowerEmail && c.lastRemindedAt && Date.parse(c.lastRemindedAt) > remindedSince).length;
+  const toRemind = overdue.filter((c) => c.borrowerEmail).length - recentlyReminded;
   const day = (iso: string) => format.dateTime(new Date(`${iso}T00:00:00Z`), { dateStyle: "medium", timeZone: "UTC" });
   return (
     <>
       <PageHeader title={t("overdue.title")} intro={t("overdue.intro", { out: out.length, overdue: overdue.length })} />
       {can(actor.role, "stamps:write") && overdue.length ? (
         <Panel title={t("overdue.remindTitle")} intro={t("overdue.remindIntro")} className="mb-6">
-          <RemindersButton />
+          <RemindersButton due={toRemind} recent={recentlyReminded} hours={REMINDER_GAP_HOURS} />
         </Panel>
       ) : null}
       {out.length === 0 ? (
