@@ -4,7 +4,7 @@ import { getFormatter, getTranslations } from "next-intl/server";
 import { OutBadge } from "@/components/stamps/condition-badge";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { REMINDER_GAP_HOURS } from "@/lib/data/stamp-mail";
-import { listCheckouts } from "@/lib/data/stamps";
+import { listCheckouts, type OpenCheckoutDto } from "@/lib/data/stamps";
 import { can } from "@/lib/permissions";
 import { requirePageActor } from "@/lib/session";
 import { RemindersButton } from "./reminders-button";
@@ -13,13 +13,18 @@ export async function generateMetadata(): Promise<Metadata> {
   return { title: (await getTranslations("overdue"))("title") };
 }
 
+/** Overdue check-outs with an address: how many the button would remind now, and how many it skips as reminded lately. */
+function reminderCounts(overdue: OpenCheckoutDto[], at = Date.now()) {
+  const withEmail = overdue.filter((c) => c.borrowerEmail);
+  const recentlyReminded = withEmail.filter((c) => c.lastRemindedAt && at - Date.parse(c.lastRemindedAt) < REMINDER_GAP_HOURS * 3_600_000).length;
+  return { toRemind: withEmail.length - recentlyReminded, recentlyReminded };
+}
+
 export default async function OutPage() {
   const actor = await requirePageActor();
   const [t, format, out] = await Promise.all([getTranslations(), getFormatter(), listCheckouts(actor)]);
   const overdue = out.filter((c) => c.overdue);
-  const remindedSince = Date.now() - REMINDER_GAP_HOURS * 3_600_000;
-  const recentlyReminded = overdue.filter((c) => c.borrowerEmail && c.lastRemindedAt && Date.parse(c.lastRemindedAt) > remindedSince).length;
-  const toRemind = overdue.filter((c) => c.borrowerEmail).length - recentlyReminded;
+  const { toRemind, recentlyReminded } = reminderCounts(overdue);
   const day = (iso: string) => format.dateTime(new Date(`${iso}T00:00:00Z`), { dateStyle: "medium", timeZone: "UTC" });
   return (
     <>
