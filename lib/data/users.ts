@@ -85,20 +85,31 @@ export async function resendInvitation(actor: Actor, id: string) {
   await sendInvitation(user, actor.name);
 }
 
+/**
+ * Changes a user. A change that takes an active administrator away (another role, or disabled) is refused
+ * when no other active administrator would remain: someone must always be able to manage people. The active
+ * administrators are locked first, in one order, so two admins demoting each other at once queue and the
+ * second sees that only one is left.
+ */
 export async function updateUser(actor: Actor, id: string, patch: UpdateUserInput): Promise<UserDto> {
   assertCan(actor, "users:manage");
-  const user = await findUser(id);
-  if (user.id === actor.id && (patch.disabled === true || (patch.role && patch.role !== "admin"))) {
-    // Keeps at least the acting admin able to undo mistakes.
-    throw new AppError("conflict", {}, { role: ["validation.cannotDemoteSelf"] });
-  }
-  const endsSessions = (patch.role !== undefined && patch.role !== user.role) || (patch.disabled !== undefined && patch.disabled !== user.disabled);
-  const [updated] = await db
-    .update(users)
-    .set({ ...patch, updatedAt: new Date(), ...(endsSessions ? { sessionVersion: sql`${users.sessionVersion} + 1` } : {}) })
-    .where(eq(users.id, id))
-    .returning();
-  return toUserDto(updated);
+  return db.transaction(async (tx) => {
+    const mayRemoveAdmin = (patch.role !== undefined && patch.role !== "admin") || patch.disabled === true;
+    const activeAdmins = mayRemoveAdmin
+      ? await tx.select({ id: users.id }).from(users).where(and(eq(users.role, "admin"), eq(users.disabled, false))).orderBy(asc(users.id)).for("update")
+      : [];
+    const [user] = await tx.select().from(users).where(eq(users.id, id)).limit(1).for("update");
+    if (!user) throw new AppError("notFound");
+    const removesAdmin = user.role === "admin" && !user.disabled && mayRemoveAdmin;
+    if (removesAdmin && !activeAdmins.some((a) => a.id !== user.id)) throw new AppError("lastAdmin");
+    const endsSessions = (patch.role !== undefined && patch.role !== user.role) || (patch.disabled !== undefined && patch.disabled !== user.disabled);
+    const [updated] = await tx
+      .update(users)
+      .set({ ...patch, updatedAt: new Date(), ...(endsSessions ? { sessionVersion: sql`${users.sessionVersion} + 1` } : {}) })
+      .where(eq(users.id, id))
+      .returning();
+    return toUserDto(updated);
+  });
 }
 
 /** Sends a reset link if the address belongs to an active user; answers the same either way. */
