@@ -19,11 +19,13 @@ interface Props {
   canWrite: boolean;
   unitSystem: "metric" | "imperial";
   stampCoverage: number | null;
+  /** With an outline the layout engine uses its area and ignores the coverage. */
+  hasOutline: boolean;
   initial: ScansAnswer;
 }
 
 /** Scans of one stamp on its record page: uploader, gallery, viewer, coverage review and look-alike stamps. */
-export function ScansPanel({ code, canWrite, unitSystem, stampCoverage, initial }: Props) {
+export function ScansPanel({ code, canWrite, unitSystem, stampCoverage, hasOutline, initial }: Props) {
   const t = useTranslations("scans");
   const { data, error, isLoading, mutate } = useScans(code, initial);
   const similar = useSimilarStamps(code);
@@ -78,7 +80,7 @@ export function ScansPanel({ code, canWrite, unitSystem, stampCoverage, initial 
         </ul>
       )}
 
-      {reviewed ? <CoverageReview key={reviewed.id} scan={reviewed} canWrite={canWrite} stampCoverage={stampCoverage} onClose={() => setReviewing(null)} onSaved={() => mutate()} /> : null}
+      {reviewed ? <CoverageReview key={reviewed.id} scan={reviewed} canWrite={canWrite} stampCoverage={stampCoverage} hasOutline={hasOutline} onClose={() => setReviewing(null)} onSaved={() => mutate()} /> : null}
 
       <ScanViewer scan={viewing} code={code} onClose={() => setViewing(null)} />
 

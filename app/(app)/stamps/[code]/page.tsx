@@ -1,8 +1,10 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { Suspense } from "react";
 import { getFormatter, getTranslations } from "next-intl/server";
 import { StampScans } from "@/components/scans/stamp-scans";
+import { LoadingState } from "@/components/shell/loading-state";
 import { ConditionBadge, OutBadge } from "@/components/stamps/condition-badge";
 import { Footprint } from "@/components/stamps/footprint";
 import { StampHistory } from "@/components/stamps/history";
@@ -171,7 +173,10 @@ export default async function StampPage({ params, searchParams }: Props) {
             {stamp.notes ? <p className="mt-4 whitespace-pre-line border-t border-stone-100 pt-3 text-sm text-stone-700">{stamp.notes}</p> : null}
           </Panel>
 
-          <StampScans actor={actor} code={stamp.code} coverageRatio={stamp.coverageRatio} />
+          {/* Below the lookup: an unknown code has answered 404 before anything streams. */}
+          <Suspense fallback={<LoadingState />}>
+            <StampScans actor={actor} code={stamp.code} coverageRatio={stamp.coverageRatio} hasOutline={stamp.outlinePath !== null} />
+          </Suspense>
 
           <Panel title={t("stamps.history.title")}>
             <StampHistory events={history} unitSystem={units} />
