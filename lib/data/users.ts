@@ -128,6 +128,26 @@ export async function sendPasswordResetFor(actor: Actor, id: string) {
   await requestPasswordReset(user.email);
 }
 
+export type PasswordLinkStatus = "valid" | "used" | "expired" | "unknown";
+
+/**
+ * What an invitation or reset link is worth before anyone types a password: unknown (never issued,
+ * replaced by a newer link, or its account is disabled), used, expired, or valid. Public: the secret is the proof.
+ */
+export async function passwordLinkStatus(secret: string): Promise<PasswordLinkStatus> {
+  if (secret.length < 20 || secret.length > 200) return "unknown";
+  const [row] = await db
+    .select({ usedAt: userTokens.usedAt, expiresAt: userTokens.expiresAt, disabled: users.disabled })
+    .from(userTokens)
+    .innerJoin(users, eq(users.id, userTokens.userId))
+    .where(eq(userTokens.tokenHash, hashSecret(secret)))
+    .limit(1);
+  if (!row || row.disabled) return "unknown";
+  if (row.usedAt) return "used";
+  if (row.expiresAt.getTime() <= Date.now()) return "expired";
+  return "valid";
+}
+
 /** Uses an invitation or reset link once: sets the password and ends every older session. */
 export async function setPasswordWithToken(secret: string, password: string): Promise<{ email: string }> {
   const passwordHash = await hashPassword(password);
