@@ -167,7 +167,7 @@ export async function deleteStampAction(_prev: FormState, formData: FormData): P
   });
   if (done) {
     revalidatePath("/stamps");
-    redirect("/stamps?deleted=1");
+    redirect(`/stamps?deleted=${encodeURIComponent(text(formData, "code").trim().toUpperCase())}`);
   }
   return state;
 }
@@ -190,8 +190,15 @@ async function onStamp<S extends z.ZodType>(
 
 const optional = (f: FormData, name: string) => text(f, name).trim() || undefined;
 
+/** After a check-out or return the record opens again with a note of what happened (who has it now, or where it went). */
+function showOnRecord(state: FormState, formData: FormData, saved: "checkedOut" | "returned"): FormState {
+  const code = stampCodeSchema.safeParse(text(formData, "code"));
+  if (state.status === "success" && code.success) redirect(`/stamps/${encodeURIComponent(code.data)}?saved=${saved}`);
+  return state;
+}
+
 export async function checkoutAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  return onStamp(
+  const state = await onStamp(
     formData,
     checkoutSchema,
     (f) => ({
@@ -208,10 +215,11 @@ export async function checkoutAction(_prev: FormState, formData: FormData): Prom
       return (await getTranslations())("stamps.checkout.done", { name: out.borrowerName });
     },
   );
+  return showOnRecord(state, formData, "checkedOut");
 }
 
 export async function returnAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  return onStamp(
+  const state = await onStamp(
     formData,
     returnSchema,
     (f) => {
@@ -224,6 +232,7 @@ export async function returnAction(_prev: FormState, formData: FormData): Promis
       return (await getTranslations())("stamps.return.done");
     },
   );
+  return showOnRecord(state, formData, "returned");
 }
 
 export async function reportDamageAction(_prev: FormState, formData: FormData): Promise<FormState> {

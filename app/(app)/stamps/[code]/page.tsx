@@ -146,6 +146,16 @@ export default async function StampPage({ params, searchParams }: Props) {
         }
       />
       {saved === "created" || saved === "updated" ? <Notice tone="success" className="mb-4">{t(`stamps.record.saved.${saved}`)}</Notice> : null}
+      {saved === "checkedOut" && checkout ? (
+        <Notice tone="success" className="mb-4">
+          {t("stamps.record.saved.checkedOut", { name: checkout.borrowerName, workstation: checkout.workstation, due: day(checkout.dueOn) })}
+        </Notice>
+      ) : null}
+      {saved === "returned" && !checkout ? (
+        <Notice tone="success" className="mb-4">
+          {stamp.location ? t("stamps.record.saved.returnedTo", { place: `${stamp.location.site} · ${stamp.location.code}` }) : t("stamps.record.saved.returned")}
+        </Notice>
+      ) : null}
 
       <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
         <div className="space-y-6">
