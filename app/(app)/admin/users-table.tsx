@@ -21,7 +21,7 @@ import { cn } from "@/components/ui/cn";
 import { ConfirmDialog, type ConfirmRequest } from "@/components/ui/confirm-dialog";
 import { Notice } from "@/components/ui/notice";
 import { SortableTableHead } from "@/components/ui/sortable-table-head";
-import { initialFormState } from "@/lib/actions/form-state";
+import { initialFormState, type FormState } from "@/lib/actions/form-state";
 import type { UserDto } from "@/lib/data/users";
 import { roles } from "@/lib/permissions";
 import { userRowAction } from "./actions";
@@ -47,7 +47,11 @@ interface Pending {
 
 export function UsersTable({ users, selfId }: { users: UserDto[]; selfId: string }) {
   const t = useTranslations();
-  const [state, action, pending] = useActionState(userRowAction, initialFormState);
+  // Each answer is stamped, so a refused row can start over from the saved role (see the role form's key).
+  const [state, action, pending] = useActionState(async (previous: FormState, formData: FormData) => {
+    const answer = await userRowAction(previous, formData);
+    return { ...answer, data: { ...answer.data, answeredAt: String(Date.now()) } };
+  }, initialFormState);
   const [filter, setFilter] = useState("");
   const [asking, setAsking] = useState<Pending | null>(null);
 
@@ -80,8 +84,11 @@ export function UsersTable({ users, selfId }: { users: UserDto[]; selfId: string
           cell: (info) => {
             const user = info.row.original;
             const self = user.id === selfId;
+            // A refused role change or disable shows its message beside this row's role.
+            const refusedHere = state.status === "error" && state.values?.id === user.id;
             return (
               <form
+                key={`${user.role}-${refusedHere ? state.data?.answeredAt : ""}`}
                 action={action}
                 className="flex items-center gap-2"
                 onSubmit={(e) => {
@@ -104,6 +111,8 @@ export function UsersTable({ users, selfId }: { users: UserDto[]; selfId: string
                 <select
                   name="role"
                   aria-label={t("admin.changeRole", { name: user.name })}
+                  aria-invalid={refusedHere ? true : undefined}
+                  aria-describedby={refusedHere ? `role-${user.id}-error` : undefined}
                   defaultValue={user.role}
                   disabled={pending}
                   onChange={(e) => e.currentTarget.form?.requestSubmit()}
@@ -115,6 +124,11 @@ export function UsersTable({ users, selfId }: { users: UserDto[]; selfId: string
                     </option>
                   ))}
                 </select>
+                {refusedHere ? (
+                  <p id={`role-${user.id}-error`} className="max-w-56 text-xs text-red-700">
+                    {state.message}
+                  </p>
+                ) : null}
               </form>
             );
           },
@@ -160,7 +174,7 @@ export function UsersTable({ users, selfId }: { users: UserDto[]; selfId: string
           },
         }),
       ]),
-    [t, action, pending, selfId],
+    [t, action, pending, selfId, state],
   );
 
   const table = useTable({
