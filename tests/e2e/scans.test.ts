@@ -76,3 +76,27 @@ describe("a stamp keeper with a scan", () => {
     await context.close();
   });
 });
+
+describe("a stamp with an outline", () => {
+  it("the coverage review says the layout engine uses the outline, before and after saving", async () => {
+    const { appUrl } = testEnv();
+    const code = `${uniquePrefix("E2O")}-1`;
+    await createStampRow({ code, name: "Outlined disc", widthMm: 100, heightMm: 100, outlinePath: "M20 50 A30 30 0 1 0 80 50 A30 30 0 1 0 20 50 Z" });
+    const keeper = await createUser("keeper");
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    await signInThroughPage(page, keeper.email, keeper.password);
+    await page.goto(`${appUrl}/stamps/${code}`);
+    const { png } = await shapeScan({ dpi: 254, sideMm: 100, body: `<circle cx="50" cy="50" r="30"/>`, ink: "#1c1917", ground: "#ffffff" });
+    await page.locator('[data-testid="scan-file-input"]:not([disabled])').waitFor({ state: "attached" });
+    await page.getByTestId("scan-file-input").setInputFiles({ name: "outlined-print.png", mimeType: "image/png", buffer: png });
+    await page.locator('[data-testid="upload-queue"] li[data-status="done"]').waitFor({ timeout: 30_000 });
+    await page.getByTestId("review-coverage").first().click();
+    expect(await page.getByTestId("engine-uses").textContent()).toContain("takes the waxed area from the outline");
+    await page.waitForFunction(() => /%/.test(document.querySelector('[data-testid="coverage-ratio"]')?.textContent ?? ""));
+    await page.getByTestId("save-coverage").click();
+    await page.getByTestId("coverage-review").getByText("The layout engine still uses the stamp's outline, not this coverage").waitFor();
+    expect(await page.getByTestId("coverage-review").textContent()).not.toContain("The layout engine uses it for this stamp");
+    await context.close();
+  });
+});
