@@ -134,7 +134,7 @@ export function StampForm({
         <legend className="mb-2 text-sm font-semibold text-stone-900">{t("stamps.form.placeAndState")}</legend>
         <Field id="stamp-location" label={t("stamps.fields.location")} errors={e.locationId}>
           {(aria) => (
-            <select {...aria} name="locationId" defaultValue={v("locationId", initial.locationId ?? "")}>
+            <select {...aria} key={v("locationId", initial.locationId ?? "")} name="locationId" defaultValue={v("locationId", initial.locationId ?? "")}>
               <option value="">{t("stamps.form.noLocation")}</option>
               {locations.map((l) => (
                 <option key={l.id} value={l.id}>
@@ -147,7 +147,7 @@ export function StampForm({
         {mode === "create" ? (
           <Field id="stamp-condition" label={t("stamps.fields.condition")} errors={e.condition}>
             {(aria) => (
-              <select {...aria} name="condition" defaultValue={v("condition", initial.condition)}>
+              <select {...aria} key={v("condition", initial.condition)} name="condition" defaultValue={v("condition", initial.condition)}>
                 {stampConditions.map((c) => (
                   <option key={c} value={c}>
                     {t(`stamps.conditions.${c}`)}

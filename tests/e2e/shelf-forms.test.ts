@@ -68,7 +68,7 @@ describe("locations", () => {
     await go("/stamps/locations");
     page.once("dialog", (dialog) => void dialog.accept());
     await page.getByTestId(`site-${site}`).getByTestId("location-R9-S1").getByRole("button", { name: "Delete" }).click();
-    await page.getByText("Location deleted.").waitFor();
+    await page.getByText(`Location ${site} · R9-S1 was deleted.`).waitFor();
     expect(await db().select().from(locations).where(eq(locations.site, site))).toEqual([]);
   });
 });
@@ -165,6 +165,8 @@ describe("damage and condition", () => {
     await damage.getByLabel("What is wrong").selectOption({ label: "Other" });
     await damage.getByRole("button", { name: "Report damage" }).click();
     await expectMessageBeside(damage.getByLabel("Details"), /Required/);
+    // The refused form keeps the choice (a select, which React's form reset would otherwise clear).
+    expect(await damage.getByLabel("What is wrong").inputValue()).toBe("other");
     await damage.getByLabel("Details").fill("Handle wobbles");
     await damage.getByRole("button", { name: "Report damage" }).click();
     await page.getByTestId("open-damage").waitFor();

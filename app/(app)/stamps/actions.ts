@@ -7,6 +7,7 @@ import { z } from "zod";
 import type { FormState } from "@/lib/actions/form-state";
 import { runForm } from "@/lib/actions/run-form";
 import { createLocation, deleteLocation, updateLocation } from "@/lib/data/locations";
+import { locationLabel } from "@/lib/data/stamp-events";
 import { sendOverdueReminders } from "@/lib/data/stamp-mail";
 import { AppError } from "@/lib/errors";
 import { changeCondition, checkOutStamp, createStamp, deleteStamp, reportDamage, returnStamp, updateStamp } from "@/lib/data/stamps";
@@ -278,14 +279,18 @@ export async function locationRowAction(_prev: FormState, formData: FormData): P
     locationIdParamSchema.extend({ intent: z.literal("delete") }),
     locationIdParamSchema.extend({ intent: z.literal("describe"), description: z.string().trim().max(300, "validation.tooLong") }),
   ]);
-  return runForm(formData, schema, async (input) => {
+  let deleted: { site: string; code: string } | null = null;
+  const state = await runForm(formData, schema, async (input) => {
     const actor = await requirePermission("stamps:write");
     const t = await getTranslations();
-    if (input.intent === "delete") await deleteLocation(actor, input.id);
+    if (input.intent === "delete") deleted = await deleteLocation(actor, input.id);
     else await updateLocation(actor, input.id, { description: input.description || null });
     revalidatePath("/stamps/locations");
     return { status: "success", message: input.intent === "delete" ? t("locations.deleted") : t("locations.saved") };
   });
+  // The row goes away with the location, and its message with it: the page says it instead.
+  if (deleted) redirect(`/stamps/locations?deleted=${encodeURIComponent(locationLabel(deleted)!)}`);
+  return state;
 }
 
 // --- reminders -----------------------------------------------------------------------------------
