@@ -5,7 +5,7 @@ import { createUser } from "../helpers/db";
 import { launchBrowser, signInThroughPage } from "../helpers/browser";
 import { testEnv } from "../helpers/env";
 import { expectMessageBeside } from "../helpers/forms";
-import { createLocation, createStampRow, uniquePrefix } from "../helpers/stamps";
+import { createLocation, createStampRow, reloadStamp, uniquePrefix } from "../helpers/stamps";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -67,12 +67,26 @@ describe("a stock-take on a phone", () => {
     await code.press("Enter");
     await expectMessageBeside(code, /Scan a label or type a stamp code/);
 
+    // The stamp recorded at A lies on B: the count moves it where it was seen, after asking.
+    await code.fill(`${prefix}-1`);
+    await code.press("Enter");
+    await expect.poll(() => page.getByTestId("report").textContent()).toContain(`recorded at ${site} · A, seen at ${site} · B`);
+    page.once("dialog", (dialog) => void dialog.accept());
+    await page.getByRole("button", { name: "Move 1 stamp to where it was seen" }).click();
+    await page.getByText("1 stamp moved.").waitFor();
+    expect((await reloadStamp(`${prefix}-1`))!.locationId).toBe(b.id);
+
     // Starting again at a site whose count is running opens that count.
     await page.goto(`${appUrl}/stamps/stock-takes`);
     await start.getByLabel("Site").selectOption({ label: `${site} (a count is running: continue it)` });
     await start.getByRole("button", { name: "Start counting" }).click();
     await page.waitForURL(countUrl);
-    await expect.poll(() => page.getByTestId("progress").textContent()).toBe("1 / 2 seen");
+    await expect.poll(() => page.getByTestId("progress").textContent()).toBe("2 / 2 seen");
+
+    page.once("dialog", (dialog) => void dialog.accept());
+    await page.getByRole("button", { name: "End the count" }).click();
+    await page.getByText("The count has ended.").waitFor();
+    await page.getByText(/This count ended/).waitFor();
     await context.close();
   });
 });
