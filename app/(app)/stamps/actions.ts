@@ -102,7 +102,7 @@ async function lowCoverageUnconfirmed(formData: FormData, ratio: number | null |
   return {
     status: "error",
     message: t("common.formHasErrors"),
-    fieldErrors: { coveragePct: [t("validation.coverageLow", { pct, meant: ratioToPercent(ratio * 100) })] },
+    fieldErrors: { coveragePct: [ratio === 0 ? t("validation.coverageZero") : t("validation.coverageLow", { pct, meant: ratioToPercent(ratio * 100) })] },
     data: { lowCoverage: "1" },
   };
 }
