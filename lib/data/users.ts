@@ -89,7 +89,8 @@ export async function resendInvitation(actor: Actor, id: string) {
  * Changes a user. A change that takes an active administrator away (another role, or disabled) is refused
  * when no other active administrator would remain: someone must always be able to manage people. The active
  * administrators are locked first, in one order, so two admins demoting each other at once queue and the
- * second sees that only one is left.
+ * second sees that only one is left. Administrators never remove their own role or disable themselves
+ * (another administrator can), so the one acting can always undo a mistake.
  */
 export async function updateUser(actor: Actor, id: string, patch: UpdateUserInput): Promise<UserDto> {
   assertCan(actor, "users:manage");
@@ -102,6 +103,7 @@ export async function updateUser(actor: Actor, id: string, patch: UpdateUserInpu
     if (!user) throw new AppError("notFound");
     const removesAdmin = user.role === "admin" && !user.disabled && mayRemoveAdmin;
     if (removesAdmin && !activeAdmins.some((a) => a.id !== user.id)) throw new AppError("lastAdmin");
+    if (user.id === actor.id && mayRemoveAdmin) throw new AppError("conflict", {}, { role: ["validation.cannotDemoteSelf"] });
     const endsSessions = (patch.role !== undefined && patch.role !== user.role) || (patch.disabled !== undefined && patch.disabled !== user.disabled);
     const [updated] = await tx
       .update(users)

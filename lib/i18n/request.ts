@@ -18,10 +18,12 @@ async function timeZone(): Promise<string> {
 
 // No locale in the URL: the language follows the user's choice (a cookie set from their
 // profile), then the browser's first language. The time zone is the workshop's, for every page and
-// (through NextIntlClientProvider) every client component: the one place dates get their zone.
+// (through NextIntlClientProvider) every client component: the one place dates get their zone and
+// their "now".
 export default getRequestConfig(async () => {
   const fromCookie = (await cookies()).get(localeCookie)?.value;
   const fromBrowser = (await headers()).get("accept-language")?.split(",")[0]?.split("-")[0];
   const locale = pickLocale(fromCookie ?? fromBrowser);
-  return { locale, messages: messagesFor(locale) as AbstractIntlMessages, timeZone: await timeZone() };
+  // `now` too: relative times ("5 seconds ago") then read the same on the server and while the page hydrates.
+  return { locale, messages: messagesFor(locale) as AbstractIntlMessages, timeZone: await timeZone(), now: new Date() };
 });

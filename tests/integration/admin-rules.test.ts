@@ -14,7 +14,7 @@ describe("the last active administrator", () => {
     if (setAside.length) await db().update(users).set({ disabled: false }).where(inArray(users.id, setAside));
   });
 
-  it("cannot demote or disable themselves (409 lastAdmin, nothing changes); with a second admin they can step down", async () => {
+  it("cannot demote or disable themselves (409 lastAdmin, nothing changes); with a second admin, that one may demote them", async () => {
     const only = await createUser("admin");
     const session = (await signIn(only.email, only.password))!;
     for (const patch of [{ role: "keeper" }, { disabled: true }, { role: "planner", disabled: false }]) {
@@ -28,11 +28,16 @@ describe("the last active administrator", () => {
     expect((await api("PATCH", `/api/v1/users/${only.id}`, { session, body: { name: "Sole Admin" } })).status).toBe(200);
 
     const second = await createUser("admin");
-    const res = await api("PATCH", `/api/v1/users/${only.id}`, { session, body: { role: "keeper" } });
+    // Still not themselves (another administrator can, so the one acting can always undo a mistake)…
+    const self = await api("PATCH", `/api/v1/users/${only.id}`, { session, body: { role: "keeper" } });
+    expect(self.status).toBe(409);
+    expect(self.body.error.fields.role[0]).toMatch(/another administrator can/);
+    // …but the second administrator may.
+    const secondSession = (await signIn(second.email, second.password))!;
+    const res = await api("PATCH", `/api/v1/users/${only.id}`, { session: secondSession, body: { role: "keeper" } });
     expect(res.status).toBe(200);
     expect((await reloadUser(only.id)).role).toBe("keeper");
     // The one left is now the last: they cannot go either.
-    const secondSession = (await signIn(second.email, second.password))!;
     expect((await api("PATCH", `/api/v1/users/${second.id}`, { session: secondSession, body: { disabled: true } })).status).toBe(409);
     await db().update(users).set({ disabled: true }).where(inArray(users.id, [second.id]));
   });

@@ -98,9 +98,9 @@ export function UsersTable({ users, selfId }: { users: UserDto[]; selfId: string
                     e,
                     {
                       title: t("admin.confirm.roleTitle", { name: user.name }),
-                      body: self ? t("admin.confirm.roleSelf", { role }) : t("admin.confirm.roleBody", { name: user.name, from: t(`roles.${user.role}.name`), role }),
-                      confirmLabel: self ? t("admin.confirm.roleSelfConfirm", { role }) : t("admin.confirm.roleConfirm", { role }),
-                      tone: self || select.value === "admin" ? "danger" : "primary",
+                      body: t("admin.confirm.roleBody", { name: user.name, from: t(`roles.${user.role}.name`), role }),
+                      confirmLabel: t("admin.confirm.roleConfirm", { role }),
+                      tone: select.value === "admin" ? "danger" : "primary",
                     },
                     () => (select.value = user.role),
                   );
@@ -112,9 +112,9 @@ export function UsersTable({ users, selfId }: { users: UserDto[]; selfId: string
                   name="role"
                   aria-label={t("admin.changeRole", { name: user.name })}
                   aria-invalid={refusedHere ? true : undefined}
-                  aria-describedby={refusedHere ? `role-${user.id}-error` : undefined}
+                  aria-describedby={[self ? `role-${user.id}-hint` : null, refusedHere ? `role-${user.id}-error` : null].filter(Boolean).join(" ") || undefined}
                   defaultValue={user.role}
-                  disabled={pending}
+                  disabled={pending || self}
                   onChange={(e) => e.currentTarget.form?.requestSubmit()}
                   className="rounded-md border border-stone-300 bg-white px-2 py-1 text-sm"
                 >
@@ -124,9 +124,14 @@ export function UsersTable({ users, selfId }: { users: UserDto[]; selfId: string
                     </option>
                   ))}
                 </select>
+                {self ? (
+                  <p id={`role-${user.id}-hint`} className="max-w-48 text-xs text-stone-500">
+                    {t("admin.ownRole")}
+                  </p>
+                ) : null}
                 {refusedHere ? (
                   <p id={`role-${user.id}-error`} className="max-w-56 text-xs text-red-700">
-                    {state.message}
+                    {state.fieldErrors?.role?.join(" ") ?? state.message}
                   </p>
                 ) : null}
               </form>
