@@ -29,6 +29,8 @@ export const errorStatus = {
   stockTakeOpen: 409,
   stockTakeClosed: 409,
   csvMediaType: 415,
+  settingsConflict: 409,
+  lastAdmin: 409,
   internal: 500,
 } as const;
 

@@ -18,9 +18,6 @@ export const isUniqueViolation = (error: unknown, constraint: string) => {
 
 export const isForeignKeyViolation = (error: unknown) => pgErrorOf(error)?.code === "23503";
 
-/** Today's date (UTC) as YYYY-MM-DD: check-outs are due at the end of their due date. */
-export const todayIso = () => new Date().toISOString().slice(0, 10);
-
 export interface EventInput {
   kind: StampEventKind;
   from?: string | null;

@@ -43,14 +43,19 @@ function messageForCode(issue: z.core.$ZodIssue): { key: string; values: Record<
   }
 }
 
-/** Translated messages keyed by the field's dotted path ("cloth.widthMm"); "_form" for the whole input. */
+/**
+ * Translated messages keyed by the field's dotted path ("cloth.widthMm"); "_form" for the whole input.
+ * Two checks of one field may fail with the same message (a pattern and a refinement): it is listed once.
+ */
 export function translateIssues(issues: readonly z.core.$ZodIssue[], t: Translate, has?: HasKey): FieldErrors {
   const fields: FieldErrors = {};
   for (const issue of issues) {
     const path = issue.path.length ? issue.path.map(String).join(".") : "_form";
     let { key, values } = issueMessage(issue);
     if (has && !has(key)) ({ key, values } = { key: "validation.invalid", values: {} });
-    (fields[path] ??= []).push(t(key, values));
+    const message = t(key, values);
+    const list = (fields[path] ??= []);
+    if (!list.includes(message)) list.push(message);
   }
   return fields;
 }
