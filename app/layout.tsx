@@ -16,7 +16,12 @@ const inter = localFont({
 
 export async function generateMetadata(): Promise<Metadata> {
   const t = await getTranslations("app");
-  return { title: { default: t("name"), template: `%s · ${t("name")}` }, description: t("tagline") };
+  return {
+    title: { default: t("name"), template: `%s · ${t("name")}` },
+    description: t("tagline"),
+    // Static files in public/: the logo as the browser tab's icon.
+    icons: { icon: [{ url: "/favicon.ico", sizes: "16x16 32x32 48x48" }, { url: "/favicon.svg", type: "image/svg+xml" }] },
+  };
 }
 
 export default async function RootLayout({ children }: { children: React.ReactNode }) {

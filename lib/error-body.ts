@@ -29,12 +29,17 @@ function say(t: Translator, key: string, values: MessageValues): string {
   return t.has(key) ? t(key, withMegabytes(values)) : t("validation.invalid");
 }
 
-/** Translated messages per field for zod issues: the one issue → message path of the app. */
+/**
+ * Translated messages per field for zod issues: the one issue → message path of the app. Two checks of one
+ * field may fail with the same message (a pattern and a refinement): it is listed once.
+ */
 export function issueFields(issues: readonly z.core.$ZodIssue[], t: Translator): FieldErrors {
   const fields: FieldErrors = {};
   for (const issue of issues) {
     const { key, values } = issueMessage(issue);
-    (fields[issuePath(issue)] ??= []).push(say(t, key, values));
+    const message = say(t, key, values);
+    const list = (fields[issuePath(issue)] ??= []);
+    if (!list.includes(message)) list.push(message);
   }
   return fields;
 }

@@ -36,6 +36,8 @@ export const errorStatus = {
   csvMediaType: 415,
   scanDuplicate: 409,
   scanUploadMissing: 409,
+  settingsConflict: 409,
+  lastAdmin: 409,
   internal: 500,
 } as const;
 

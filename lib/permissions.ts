@@ -6,6 +6,7 @@ export type { Role };
 /** Who may do what (SPEC section 2). The one table every server-side check reads. */
 export const permissionTable = {
   "users:manage": ["admin"],
+  "settings:manage": ["admin"],
   "stamps:write": ["admin", "keeper"],
   "stamps:request": ["admin", "keeper", "planner", "waxmaster", "designer"],
   "plans:write": ["admin", "planner"],

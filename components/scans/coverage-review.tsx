@@ -26,7 +26,21 @@ function useSettled<T>(value: T, ms = 150): T {
  * The keeper's review of a scan's coverage: the overlay of what counts as wax, a threshold slider (starting at
  * the saved or Otsu's threshold), the live ratio, and saving it to the stamp. The server measures again on save.
  */
-export function CoverageReview({ scan, canWrite, stampCoverage, onClose, onSaved }: { scan: ScanDto; canWrite: boolean; stampCoverage: number | null; onClose: () => void; onSaved: () => void }) {
+export function CoverageReview({
+  scan,
+  canWrite,
+  stampCoverage,
+  hasOutline,
+  onClose,
+  onSaved,
+}: {
+  scan: ScanDto;
+  canWrite: boolean;
+  stampCoverage: number | null;
+  hasOutline: boolean;
+  onClose: () => void;
+  onSaved: () => void;
+}) {
   const t = useTranslations("scans.coverage");
   const format = useFormatter();
   const router = useRouter();
@@ -101,6 +115,9 @@ export function CoverageReview({ scan, canWrite, stampCoverage, onClose, onSaved
               {coverage ? percent(coverage.ratio) : isLoading ? t("measuring") : "–"}
             </div>
             <div className="mt-1 text-xs text-stone-500">{t("current", { ratio: stampCoverage !== null ? percent(stampCoverage) : t("none") })}</div>
+            <div className="mt-1 text-xs text-stone-500" data-testid="engine-uses">
+              {hasOutline ? t("engineUsesOutline") : t("engineUsesCoverage")}
+            </div>
           </div>
           {error ? <Notice tone="error">{t("failed", { message: error instanceof Error ? error.message : String(error) })}</Notice> : null}
           {canWrite ? (
@@ -109,7 +126,7 @@ export function CoverageReview({ scan, canWrite, stampCoverage, onClose, onSaved
             </Button>
           ) : null}
           {saveError ? <Notice tone="error">{saveError}</Notice> : null}
-          {savedRatio !== null ? <Notice tone="success">{t("saved", { ratio: savedRatio })}</Notice> : null}
+          {savedRatio !== null ? <Notice tone="success">{t(hasOutline ? "savedWithOutline" : "saved", { ratio: savedRatio })}</Notice> : null}
         </div>
       </div>
     </section>

@@ -132,13 +132,16 @@ export function ScanUploader({ code, maxBytes, onStored }: { code: string; maxBy
             max={DPI_MAX}
             value={dpi}
             onChange={(e) => setDpi(e.target.value)}
-            aria-invalid={dpiInvalid}
-            aria-describedby="scan-dpi-hint"
+            aria-invalid={dpiInvalid || undefined}
+            aria-describedby={dpiInvalid ? "scan-dpi-hint scan-dpi-error" : "scan-dpi-hint"}
             className={cn("mt-1 block w-full rounded-md border px-2.5 py-1.5 text-sm", dpiInvalid ? "border-red-400" : "border-stone-300")}
             name="dpi"
           />
-          <span id="scan-dpi-hint" className={cn("mt-1 block text-xs", dpiInvalid ? "text-red-700" : "text-stone-500")}>
-            {dpiInvalid ? t("upload.dpiInvalid") : t("upload.dpiHint")}
+          <span id="scan-dpi-hint" className="mt-1 block text-xs text-stone-500">
+            {t("upload.dpiHint")}
+          </span>
+          <span id="scan-dpi-error" className={cn("mt-1 block text-sm text-red-700", !dpiInvalid && "sr-only")} aria-live="polite">
+            {dpiInvalid ? t("upload.dpiInvalid") : null}
           </span>
         </label>
       </div>

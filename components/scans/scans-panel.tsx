@@ -8,6 +8,7 @@ import { Button } from "@/components/ui/button";
 import { cn } from "@/components/ui/cn";
 import { Notice } from "@/components/ui/notice";
 import { scanUrls, type ScanDto } from "@/lib/contracts/scans";
+import { LOOK_ALIKE_MAX_BITS } from "@/lib/scans/look-alikes";
 import { ApiError, apiFetch } from "@/lib/swr/fetcher";
 import { useScans, useSimilarStamps, type ScansAnswer } from "@/lib/swr/use-scans";
 import { CoverageReview } from "./coverage-review";
@@ -18,11 +19,13 @@ interface Props {
   canWrite: boolean;
   unitSystem: "metric" | "imperial";
   stampCoverage: number | null;
+  /** With an outline the layout engine uses its area and ignores the coverage. */
+  hasOutline: boolean;
   initial: ScansAnswer;
 }
 
 /** Scans of one stamp on its record page: uploader, gallery, viewer, coverage review and look-alike stamps. */
-export function ScansPanel({ code, canWrite, unitSystem, stampCoverage, initial }: Props) {
+export function ScansPanel({ code, canWrite, unitSystem, stampCoverage, hasOutline, initial }: Props) {
   const t = useTranslations("scans");
   const { data, error, isLoading, mutate } = useScans(code, initial);
   const similar = useSimilarStamps(code);
@@ -77,13 +80,13 @@ export function ScansPanel({ code, canWrite, unitSystem, stampCoverage, initial 
         </ul>
       )}
 
-      {reviewed ? <CoverageReview key={reviewed.id} scan={reviewed} canWrite={canWrite} stampCoverage={stampCoverage} onClose={() => setReviewing(null)} onSaved={() => mutate()} /> : null}
+      {reviewed ? <CoverageReview key={reviewed.id} scan={reviewed} canWrite={canWrite} stampCoverage={stampCoverage} hasOutline={hasOutline} onClose={() => setReviewing(null)} onSaved={() => mutate()} /> : null}
 
       <ScanViewer scan={viewing} code={code} onClose={() => setViewing(null)} />
 
       <section className="border-t border-stone-100 pt-4" data-testid="similar-stamps">
         <h3 className="text-sm font-semibold text-stone-900">{t("similar.title")}</h3>
-        <p className="mt-0.5 text-xs text-stone-500">{t("similar.intro")}</p>
+        <p className="mt-0.5 text-xs text-stone-500">{t("similar.intro", { max: LOOK_ALIKE_MAX_BITS })}</p>
         {scans.length === 0 ? (
           <p className="mt-2 text-sm text-stone-500">{t("similar.noScans")}</p>
         ) : similar.data && similar.data.stamps.length === 0 ? (
@@ -99,7 +102,11 @@ export function ScansPanel({ code, canWrite, unitSystem, stampCoverage, initial 
                   <span className="block truncate text-stone-600">{s.name}</span>
                   <span className="block text-stone-500">
                     {t("similar.distance", { distance: s.distance })}
-                    {s.orientation === "mirrored" ? <span className="ml-1 rounded bg-soga-50 px-1 text-soga-700">{t("similar.mirror")}</span> : null}
+                    {s.orientation === "mirrored" ? (
+                      <span className="ml-1 rounded bg-soga-50 px-1 text-soga-700" title={t("similar.mirrorHint")}>
+                        {t("similar.mirror")}
+                      </span>
+                    ) : null}
                   </span>
                 </Link>
               </li>

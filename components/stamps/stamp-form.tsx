@@ -7,6 +7,7 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { initialFormState, type FormState } from "@/lib/actions/form-state";
+import { ratioToPercent } from "@/lib/stamps/coverage";
 import { lengthInput, massInput, type UnitSystem } from "@/lib/stamps/format";
 import { stampConditions } from "@/lib/validation/stamps";
 
@@ -133,7 +134,7 @@ export function StampForm({
         <legend className="mb-2 text-sm font-semibold text-stone-900">{t("stamps.form.placeAndState")}</legend>
         <Field id="stamp-location" label={t("stamps.fields.location")} errors={e.locationId}>
           {(aria) => (
-            <select {...aria} name="locationId" defaultValue={v("locationId", initial.locationId ?? "")}>
+            <select {...aria} key={v("locationId", initial.locationId ?? "")} name="locationId" defaultValue={v("locationId", initial.locationId ?? "")}>
               <option value="">{t("stamps.form.noLocation")}</option>
               {locations.map((l) => (
                 <option key={l.id} value={l.id}>
@@ -146,7 +147,7 @@ export function StampForm({
         {mode === "create" ? (
           <Field id="stamp-condition" label={t("stamps.fields.condition")} errors={e.condition}>
             {(aria) => (
-              <select {...aria} name="condition" defaultValue={v("condition", initial.condition)}>
+              <select {...aria} key={v("condition", initial.condition)} name="condition" defaultValue={v("condition", initial.condition)}>
                 {stampConditions.map((c) => (
                   <option key={c} value={c}>
                     {t(`stamps.conditions.${c}`)}
@@ -171,16 +172,19 @@ export function StampForm({
         <Field id="stamp-made" label={t("stamps.fields.madeOn")} errors={e.madeOn}>
           {(aria) => <input {...aria} name="madeOn" type="date" defaultValue={v("madeOn", initial.madeOn ?? "")} />}
         </Field>
-        <Field id="stamp-coverage" label={t("stamps.form.coverage")} hint={t("stamps.form.coverageHint")} errors={e.coveragePct}>
-          {(aria) => (
-            <input
-              {...aria}
-              name="coveragePct"
-              inputMode="decimal"
-              defaultValue={v("coveragePct", initial.coverageRatio !== null ? String(Number((initial.coverageRatio * 100).toFixed(2))) : "")}
-            />
-          )}
-        </Field>
+        <div className="space-y-2">
+          <Field id="stamp-coverage" label={t("stamps.form.coverage")} hint={t("stamps.form.coverageHint")} errors={e.coveragePct}>
+            {(aria) => (
+              <input {...aria} name="coveragePct" inputMode="decimal" defaultValue={v("coveragePct", initial.coverageRatio !== null ? String(ratioToPercent(initial.coverageRatio)) : "")} />
+            )}
+          </Field>
+          {state.data?.lowCoverage ? (
+            <label className="flex items-start gap-2 text-sm text-stone-800">
+              <input type="checkbox" name="confirmLowCoverage" className="mt-0.5" />
+              {t("stamps.form.coverageKeepLow", { pct: state.values?.coveragePct ?? "" })}
+            </label>
+          ) : null}
+        </div>
       </fieldset>
 
       <fieldset className="grid gap-4 md:grid-cols-2">

@@ -2,3 +2,4 @@
 export * from "./users";
 export * from "./stamps";
 export * from "./scans";
+export * from "./settings";

@@ -6,6 +6,7 @@ import { errorAnswer, issueFields } from "@/lib/error-body";
 import { pickLocale } from "@/lib/i18n/config";
 import { translator } from "@/lib/i18n/translator";
 import { parseInput } from "@/lib/validation/parse";
+import { formFields } from "./form-fields";
 import type { FormState } from "./form-state";
 
 const secretFields = new Set(["password", "confirm", "token", "currentPassword"]);
@@ -14,22 +15,25 @@ const secretFields = new Set(["password", "confirm", "token", "currentPassword"]
 function keepValues(formData: FormData): Record<string, string> {
   const values: Record<string, string> = {};
   for (const [key, value] of formData.entries()) {
-    if (typeof value === "string" && !secretFields.has(key) && !key.startsWith("$")) values[key] = value;
+    if (typeof value === "string" && !secretFields.has(key)) values[key] = value;
   }
   return values;
 }
 
 /**
  * Runs a form's server action: validates the form with its zod schema, runs `work`, and turns
- * every failure into a FormState with translated messages. Redirects pass through.
+ * every failure into a FormState with translated messages. Redirects pass through. `toInput` sees
+ * only the form's own fields (see formFields). When a failure names fields, their messages stand
+ * beside them and the form as a whole only says to look there, so no message shows twice.
  */
 export async function runForm<S extends z.ZodType>(
-  formData: FormData,
+  submitted: FormData,
   schema: S,
   work: (input: z.output<S>) => Promise<FormState | void>,
   toInput: (formData: FormData) => unknown = (f) => Object.fromEntries(f.entries()),
 ): Promise<FormState> {
   const t = translator(pickLocale(await getLocale()));
+  const formData = formFields(submitted);
   const values = keepValues(formData);
   const parsed = parseInput(schema, toInput(formData));
   if (!parsed.success) {
@@ -41,10 +45,13 @@ export async function runForm<S extends z.ZodType>(
     };
   }
   try {
-    return (await work(parsed.data)) ?? { status: "success" };
+    const state = (await work(parsed.data)) ?? { status: "success" };
+    // A refusal decided in `work` keeps what was typed, like a schema's.
+    return state.status === "error" ? { values, ...state } : state;
   } catch (error) {
     unstable_rethrow(error);
     const { error: answer } = errorAnswer(error, t).body;
-    return { status: "error", message: answer.message, fieldErrors: answer.fields, values };
+    // A refusal that names fields shows beside them; the form as a whole only says to look there.
+    return { status: "error", message: answer.fields ? t("common.formHasErrors") : answer.message, fieldErrors: answer.fields, values };
   }
 }

@@ -136,6 +136,9 @@ export interface ReminderResult {
   sent: { code: string; borrowerName: string; borrowerEmail: string }[];
   withoutEmail: { code: string; borrowerName: string }[];
   failed: { code: string; borrowerName: string }[];
+  /** Reminded less than `gapHours` ago: not reminded again. */
+  skipped: { code: string; borrowerName: string; lastRemindedAt: string }[];
+  gapHours: number;
 }
 
 // --- URLs of the shelf's routes --------------------------------------------------------------

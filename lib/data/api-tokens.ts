@@ -1,7 +1,7 @@
 import "server-only";
 import { and, desc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
-import { apiTokens } from "@/db/schema";
+import { apiTokens, users } from "@/db/schema";
 import { hashSecret, newSecret } from "@/lib/auth/secrets";
 import { AppError } from "@/lib/errors";
 import { assertCan, type Actor } from "@/lib/authz";
@@ -38,4 +38,34 @@ export async function revokeApiToken(actor: Actor, id: string) {
     .where(and(eq(apiTokens.id, id), eq(apiTokens.userId, actor.id), isNull(apiTokens.revokedAt)))
     .returning({ id: apiTokens.id });
   if (!row) throw new AppError("notFound");
+}
+
+/** An API token as administrators see it: with its owner. */
+export interface OwnedApiTokenDto extends ApiTokenDto {
+  owner: { id: string; name: string; email: string; disabled: boolean };
+}
+
+/** Every live API token of every user, newest first (administrators). */
+export async function listAllApiTokens(actor: Actor): Promise<OwnedApiTokenDto[]> {
+  assertCan(actor, "users:manage");
+  const rows = await db
+    .select({ token: apiTokens, owner: { id: users.id, name: users.name, email: users.email, disabled: users.disabled } })
+    .from(apiTokens)
+    .innerJoin(users, eq(users.id, apiTokens.userId))
+    .where(isNull(apiTokens.revokedAt))
+    .orderBy(desc(apiTokens.createdAt));
+  return rows.map(({ token: r, owner }) => ({ id: r.id, name: r.name, prefix: r.prefix, createdAt: r.createdAt.toISOString(), lastUsedAt: r.lastUsedAt?.toISOString() ?? null, owner }));
+}
+
+/** Revokes anyone's token (administrators); scripts using it get 401 from then on. */
+export async function revokeAnyApiToken(actor: Actor, id: string): Promise<{ name: string; ownerName: string }> {
+  assertCan(actor, "users:manage");
+  const [row] = await db
+    .update(apiTokens)
+    .set({ revokedAt: new Date() })
+    .where(and(eq(apiTokens.id, id), isNull(apiTokens.revokedAt)))
+    .returning({ name: apiTokens.name, userId: apiTokens.userId });
+  if (!row) throw new AppError("notFound");
+  const [owner] = await db.select({ name: users.name }).from(users).where(eq(users.id, row.userId));
+  return { name: row.name, ownerName: owner?.name ?? "" };
 }

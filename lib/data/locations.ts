@@ -65,11 +65,12 @@ export async function updateLocation(actor: Actor, id: string, patch: Partial<Lo
 }
 
 /** Only an empty location can go: the foreign key refuses while stamps still live there. */
-export async function deleteLocation(actor: Actor, id: string) {
+export async function deleteLocation(actor: Actor, id: string): Promise<{ site: string; code: string }> {
   assertCan(actor, "stamps:write");
   try {
-    const [row] = await db.delete(locations).where(eq(locations.id, id)).returning({ id: locations.id });
+    const [row] = await db.delete(locations).where(eq(locations.id, id)).returning({ site: locations.site, code: locations.code });
     if (!row) throw new AppError("notFound");
+    return row;
   } catch (error) {
     if (isForeignKeyViolation(error)) throw new AppError("locationInUse");
     throw error;

@@ -13,7 +13,9 @@ import {
   defaultScanLimits,
   downloadFileName,
   encodeGreyRaster,
+  LOOK_ALIKE_MAX_BITS,
   measureCoverage,
+  MIRROR_TWIN_MARGIN_BITS,
   MM_PER_INCH,
   nearest,
   physicalSizeMm,
@@ -385,12 +387,11 @@ export async function saveCoverage(actor: Actor, code: string, id: string, input
 
 // --- similar motifs ----------------------------------------------------------------------------------
 
-/** Farthest Hamming distance still shown as "looks like": random 64-bit hashes sit near 32 bits apart. */
-export const SIMILAR_MAX_DISTANCE = 20;
-
 /**
  * Stamps whose scans look like this stamp's, nearest first: for every pair of scans the better of the
- * straight and the mirrored comparison (a back-face twin is a mirror image), the best pair per stamp.
+ * straight and the mirrored comparison (a back-face twin is a mirror image), the best pair per stamp. Only
+ * matches clearly closer than chance (LOOK_ALIKE_MAX_BITS); a mirror twin only when the mirrored comparison
+ * is clearly the closer one (MIRROR_TWIN_MARGIN_BITS).
  */
 export async function similarStamps(actor: Actor, code: string, limit = 8): Promise<SimilarStampDto[]> {
   assertCan(actor, "data:read");
@@ -404,7 +405,7 @@ export async function similarStamps(actor: Actor, code: string, limit = 8): Prom
   const candidates = others.map((o) => ({ id: o, hash: o.phash }));
   const best = new Map<string, { scanId: string; distance: number; orientation: "same" | "mirrored" }>();
   for (const target of own) {
-    for (const match of nearest({ hash: target.phash, mirroredHash: target.phashMirrored }, candidates, candidates.length, { maxDistance: SIMILAR_MAX_DISTANCE })) {
+    for (const match of nearest({ hash: target.phash, mirroredHash: target.phashMirrored }, candidates, candidates.length, { maxDistance: LOOK_ALIKE_MAX_BITS, mirrorMarginBits: MIRROR_TWIN_MARGIN_BITS })) {
       const current = best.get(match.id.stampId);
       if (!current || match.distance < current.distance) best.set(match.id.stampId, { scanId: match.id.id, distance: match.distance, orientation: match.orientation });
     }

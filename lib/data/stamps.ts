@@ -4,6 +4,7 @@ import { db, type Transaction } from "@/db";
 import { checkouts, damageReports, locations, stampEvents, stamps, users, type Checkout, type Location, type Stamp } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
+import { LOW_COVERAGE_RATIO } from "@/lib/stamps/coverage";
 import { canBeCheckedOut, canChangeCondition, isRepair, needsToBeIn, type Condition } from "@/lib/stamps/condition";
 import type {
   CheckoutInput,
@@ -16,7 +17,7 @@ import type {
 } from "@/lib/validation/stamps";
 import { deleteObjects } from "@/lib/s3";
 import { scanObjectKeys } from "./scans";
-import { todayIso } from "@/lib/dates";
+import { workshopToday } from "./settings";
 import { isUniqueViolation, locationLabel, recordEvent } from "./stamp-events";
 import { notifyKeepersOfDamage } from "./stamp-mail";
 import type { CheckoutDto, LocationRef, OpenCheckoutDto, StampDto, StampEventDto, StampListItem, StampPage } from "@/lib/contracts/stamps";
@@ -46,8 +47,8 @@ const toLocationRef = (l: Pick<Location, "id" | "site" | "code"> | null): Locati
 
 const escapeLike = (text: string) => text.replace(/[\\%_]/g, (c) => `\\${c}`);
 
-/** The WHERE clause of a list query; shared by the table, the count and the CSV export. */
-export function stampFilter(query: Partial<StampListQuery> & { codes?: string[] }): SQL | undefined {
+/** The WHERE clause of a list query; shared by the table, the count and the CSV export. `today` decides "overdue". */
+export function stampFilter(query: Partial<StampListQuery> & { codes?: string[] }, today: string): SQL | undefined {
   const where: (SQL | undefined)[] = [];
   if (query.codes) where.push(query.codes.length ? inArray(stamps.code, query.codes) : sql`false`);
   for (const word of (query.q ?? "").split(/\s+/).filter(Boolean).slice(0, 8)) {
@@ -66,10 +67,12 @@ export function stampFilter(query: Partial<StampListQuery> & { codes?: string[] 
   if (query.site) where.push(eq(locations.site, query.site));
   if (query.face) where.push(eq(stamps.face, query.face));
   if (query.tag) where.push(sql`${stamps.tags} @> ARRAY[${query.tag}]::text[]`);
+  if (query.lowCoverage === true) where.push(lt(stamps.coverageRatio, LOW_COVERAGE_RATIO));
+  if (query.lowCoverage === false) where.push(or(isNull(stamps.coverageRatio), gte(stamps.coverageRatio, LOW_COVERAGE_RATIO)));
   if (query.out === true) where.push(sql`${checkouts.id} IS NOT NULL`);
   if (query.out === false) where.push(isNull(checkouts.id));
-  if (query.overdue === true) where.push(lt(checkouts.dueOn, todayIso()));
-  if (query.overdue === false) where.push(or(isNull(checkouts.id), gte(checkouts.dueOn, todayIso())));
+  if (query.overdue === true) where.push(lt(checkouts.dueOn, today));
+  if (query.overdue === false) where.push(or(isNull(checkouts.id), gte(checkouts.dueOn, today)));
   if (query.minWidthMm !== undefined) where.push(gte(stamps.widthMm, query.minWidthMm));
   if (query.maxWidthMm !== undefined) where.push(lte(stamps.widthMm, query.maxWidthMm));
   if (query.minHeightMm !== undefined) where.push(gte(stamps.heightMm, query.minHeightMm));
@@ -156,8 +159,8 @@ function listBase<T extends Record<string, unknown>>(columns: T) {
 
 export async function listStamps(actor: Actor, query: StampListQuery): Promise<StampPage> {
   assertCan(actor, "data:read");
-  const where = stampFilter(query);
-  const today = todayIso();
+  const today = await workshopToday();
+  const where = stampFilter(query, today);
   const [rows, [{ n }]] = await Promise.all([
     listBase(listColumns)
       .where(where)
@@ -172,14 +175,14 @@ export async function listStamps(actor: Actor, query: StampListQuery): Promise<S
 /** Every matching stamp, in table order (for the CSV export and labels). */
 export async function listAllStamps(actor: Actor, query: Partial<StampListQuery> & { codes?: string[] }, limit = 50_000) {
   assertCan(actor, "data:read");
+  const today = await workshopToday();
   const rows = (await listBase({ ...listColumns, stripDepthMm: stamps.stripDepthMm, weightG: stamps.weightG, notes: stamps.notes, outlinePath: stamps.outlinePath, twinId: stamps.twinId })
-    .where(stampFilter(query))
+    .where(stampFilter(query, today))
     .orderBy(...orderFor(query.sort ?? "code"))
     .limit(limit)) as unknown as (ListRow & { stripDepthMm: number | null; weightG: number | null; notes: string | null; outlinePath: string | null; twinId: string | null })[];
   const twinIds = [...new Set(rows.map((r) => r.twinId).filter((id): id is string => !!id))];
   const twins = twinIds.length ? await db.select({ id: stamps.id, code: stamps.code }).from(stamps).where(inArray(stamps.id, twinIds)) : [];
   const twinCode = new Map(twins.map((t) => [t.id, t.code]));
-  const today = todayIso();
   return rows.map((r) => ({
     ...toListItem(r, today),
     stripDepthMm: r.stripDepthMm,
@@ -217,7 +220,7 @@ async function openCheckoutOf(tx: Transaction | typeof db, stampId: string) {
 export async function getStamp(actor: Actor, code: string): Promise<StampDto> {
   assertCan(actor, "data:read");
   const stamp = await findStamp(db, code);
-  const today = todayIso();
+  const today = await workshopToday();
   const [location, twin, checkoutRow, damage] = await Promise.all([
     stamp.locationId ? db.select().from(locations).where(eq(locations.id, stamp.locationId)).then((r) => r[0] ?? null) : null,
     stamp.twinId ? db.select({ code: stamps.code, name: stamps.name, mirrored: stamps.mirrored }).from(stamps).where(eq(stamps.id, stamp.twinId)).then((r) => r[0] ?? null) : null,
@@ -516,7 +519,7 @@ export async function reportDamage(actor: Actor, code: string, input: DamageRepo
     await recordEvent(tx, stamp.id, actor, { kind: "damage_reported", to: input.kind, note: input.note ?? null });
     return { stamp, report };
   });
-  await notifyKeepersOfDamage({ code: stamp.code, name: stamp.name, kind: input.kind, note: input.note ?? null, reporter: actor.name });
+  await notifyKeepersOfDamage({ code: stamp.code, name: stamp.name, kind: input.kind, note: input.note ?? null, reporter: actor.name, at: report.reportedAt });
   return { id: report.id, kind: report.kind, reportedAt: report.reportedAt.toISOString() };
 }
 
@@ -563,6 +566,7 @@ export async function checkOutStamp(actor: Actor, code: string, input: CheckoutI
 
 export async function returnStamp(actor: Actor, code: string, input: ReturnInput) {
   assertCan(actor, "stamps:write");
+  const today = await workshopToday();
   return db.transaction(async (tx) => {
     const stamp = await findStamp(tx, code, true);
     const open = await openCheckoutOf(tx, stamp.id);
@@ -584,7 +588,7 @@ export async function returnStamp(actor: Actor, code: string, input: ReturnInput
       kind: "returned",
       from: open.borrowerName,
       note: input.note ?? null,
-      details: { workstation: open.workstation, impressions: input.impressions ?? null, late: open.dueOn < todayIso() },
+      details: { workstation: open.workstation, impressions: input.impressions ?? null, late: open.dueOn < today },
     });
     if (moved) await recordEvent(tx, stamp.id, actor, { kind: "moved", from: moved.from, to: moved.to });
     return { code: stamp.code, returnedAt: new Date().toISOString() };
@@ -594,7 +598,7 @@ export async function returnStamp(actor: Actor, code: string, input: ReturnInput
 /** Stamps that are out (or only the overdue ones), the longest overdue first. */
 export async function listCheckouts(actor: Actor, options: { overdue?: boolean } = {}): Promise<OpenCheckoutDto[]> {
   assertCan(actor, "data:read");
-  const today = todayIso();
+  const today = await workshopToday();
   const rows = await db
     .select({ checkout: checkouts, code: stamps.code, name: stamps.name, location: locations, byName: users.name })
     .from(checkouts)
@@ -617,17 +621,18 @@ export async function listBorrowers(actor: Actor): Promise<{ id: string; name: s
   return db.select({ id: users.id, name: users.name, email: users.email }).from(users).where(eq(users.disabled, false)).orderBy(asc(users.name));
 }
 
-/** For the overview: how many stamps, how many out, overdue, and waiting for repair. */
+/** For the overview: how many stamps, how many out, overdue, waiting for repair, and with a coverage to check. */
 export async function stampCounts(actor: Actor) {
   assertCan(actor, "data:read");
-  const today = todayIso();
-  const [[all], [out], [repair]] = await Promise.all([
+  const today = await workshopToday();
+  const [[all], [out], [repair], [lowCoverage]] = await Promise.all([
     db.select({ n: count() }).from(stamps).where(ne(stamps.condition, "retired")),
     db
       .select({ n: count(), overdue: sql<number>`count(*) FILTER (WHERE ${checkouts.dueOn} < ${today})` })
       .from(checkouts)
       .where(isNull(checkouts.returnedAt)),
     db.select({ n: count() }).from(stamps).where(inArray(stamps.condition, ["needs_repair", "in_repair"])),
+    db.select({ n: count() }).from(stamps).where(lt(stamps.coverageRatio, LOW_COVERAGE_RATIO)),
   ]);
-  return { active: Number(all.n), out: Number(out.n), overdue: Number(out.overdue), repair: Number(repair.n) };
+  return { active: Number(all.n), out: Number(out.n), overdue: Number(out.overdue), repair: Number(repair.n), lowCoverage: Number(lowCoverage.n) };
 }

@@ -8,12 +8,13 @@ import { hashSecret, newSecret } from "@/lib/auth/secrets";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
 import { pickLocale } from "@/lib/i18n/config";
-import { translator } from "@/lib/i18n/translator";
+import { dateFormat, translator } from "@/lib/i18n/translator";
 import { sendMail } from "@/lib/mail";
 import { clearSignInLimits } from "./sign-in";
 import { assertCan, type Actor } from "@/lib/authz";
 import type { InviteUserInput, UpdateUserInput } from "@/lib/validation/users";
 import type { UserDto } from "@/lib/contracts/people";
+import { workshopTimeZone } from "./settings";
 
 export const linkLifetime = { inviteHours: 72, resetMinutes: 60 } as const;
 
@@ -43,10 +44,20 @@ async function findUser(id: string): Promise<User> {
 async function issueLink(userId: string, kind: "invite" | "reset") {
   const secret = newSecret();
   const lifetimeMs = kind === "invite" ? linkLifetime.inviteHours * 3_600_000 : linkLifetime.resetMinutes * 60_000;
+  const expiresAt = new Date(Date.now() + lifetimeMs);
   // A new link replaces any older unused one of the same kind.
   await db.delete(userTokens).where(and(eq(userTokens.userId, userId), eq(userTokens.kind, kind), isNull(userTokens.usedAt)));
-  await db.insert(userTokens).values({ userId, kind, tokenHash: hashSecret(secret), expiresAt: new Date(Date.now() + lifetimeMs) });
-  return `${env().APP_URL.replace(/\/$/, "")}/set-password?token=${encodeURIComponent(secret)}`;
+  await db.insert(userTokens).values({ userId, kind, tokenHash: hashSecret(secret), expiresAt });
+  return { link: `${env().APP_URL.replace(/\/$/, "")}/set-password?token=${encodeURIComponent(secret)}`, expiresAt };
+}
+
+/** The invitation mail for a user, with a new link. */
+async function sendInvitation(user: User, inviter: string) {
+  const locale = pickLocale(user.locale);
+  const t = translator(locale);
+  const { link, expiresAt } = await issueLink(user.id, "invite");
+  const mail = invitationMail(t, dateFormat(locale, await workshopTimeZone()), { name: user.name, inviter, role: t(`roles.${user.role}.name`), link, hours: linkLifetime.inviteHours, expiresAt });
+  await sendMail({ to: user.email, ...mail });
 }
 
 export async function inviteUser(actor: Actor, input: InviteUserInput): Promise<UserDto> {
@@ -54,10 +65,7 @@ export async function inviteUser(actor: Actor, input: InviteUserInput): Promise<
   const [existing] = await db.select({ id: users.id }).from(users).where(eq(sql`lower(${users.email})`, input.email)).limit(1);
   if (existing) throw new AppError("emailTaken", {}, { email: ["validation.emailTaken"] });
   const [user] = await db.insert(users).values({ email: input.email, name: input.name, role: input.role }).returning();
-  const t = translator(pickLocale(user.locale));
-  const link = await issueLink(user.id, "invite");
-  const mail = invitationMail(t, { name: user.name, inviter: actor.name, role: t(`roles.${user.role}.name`), link, hours: linkLifetime.inviteHours });
-  await sendMail({ to: user.email, ...mail });
+  await sendInvitation(user, actor.name);
   return toUserDto(user);
 }
 
@@ -65,40 +73,72 @@ export async function resendInvitation(actor: Actor, id: string) {
   assertCan(actor, "users:manage");
   const user = await findUser(id);
   if (user.passwordHash) throw new AppError("conflict");
-  const t = translator(pickLocale(user.locale));
-  const link = await issueLink(user.id, "invite");
-  await sendMail({ to: user.email, ...invitationMail(t, { name: user.name, inviter: actor.name, role: t(`roles.${user.role}.name`), link, hours: linkLifetime.inviteHours }) });
+  await sendInvitation(user, actor.name);
 }
 
+/**
+ * Changes a user. A change that takes an active administrator away (another role, or disabled) is refused
+ * when no other active administrator would remain: someone must always be able to manage people. The active
+ * administrators are locked first, in one order, so two admins demoting each other at once queue and the
+ * second sees that only one is left. Administrators never remove their own role or disable themselves
+ * (another administrator can), so the one acting can always undo a mistake.
+ */
 export async function updateUser(actor: Actor, id: string, patch: UpdateUserInput): Promise<UserDto> {
   assertCan(actor, "users:manage");
-  const user = await findUser(id);
-  if (user.id === actor.id && (patch.disabled === true || (patch.role && patch.role !== "admin"))) {
-    // Keeps at least the acting admin able to undo mistakes.
-    throw new AppError("conflict", {}, { role: ["validation.cannotDemoteSelf"] });
-  }
-  const endsSessions = (patch.role !== undefined && patch.role !== user.role) || (patch.disabled !== undefined && patch.disabled !== user.disabled);
-  const [updated] = await db
-    .update(users)
-    .set({ ...patch, updatedAt: new Date(), ...(endsSessions ? { sessionVersion: sql`${users.sessionVersion} + 1` } : {}) })
-    .where(eq(users.id, id))
-    .returning();
-  return toUserDto(updated);
+  return db.transaction(async (tx) => {
+    const mayRemoveAdmin = (patch.role !== undefined && patch.role !== "admin") || patch.disabled === true;
+    const activeAdmins = mayRemoveAdmin
+      ? await tx.select({ id: users.id }).from(users).where(and(eq(users.role, "admin"), eq(users.disabled, false))).orderBy(asc(users.id)).for("update")
+      : [];
+    const [user] = await tx.select().from(users).where(eq(users.id, id)).limit(1).for("update");
+    if (!user) throw new AppError("notFound");
+    const removesAdmin = user.role === "admin" && !user.disabled && mayRemoveAdmin;
+    if (removesAdmin && !activeAdmins.some((a) => a.id !== user.id)) throw new AppError("lastAdmin");
+    if (user.id === actor.id && mayRemoveAdmin) throw new AppError("conflict", {}, { role: ["validation.cannotDemoteSelf"] });
+    const endsSessions = (patch.role !== undefined && patch.role !== user.role) || (patch.disabled !== undefined && patch.disabled !== user.disabled);
+    const [updated] = await tx
+      .update(users)
+      .set({ ...patch, updatedAt: new Date(), ...(endsSessions ? { sessionVersion: sql`${users.sessionVersion} + 1` } : {}) })
+      .where(eq(users.id, id))
+      .returning();
+    return toUserDto(updated);
+  });
 }
 
 /** Sends a reset link if the address belongs to an active user; answers the same either way. */
 export async function requestPasswordReset(email: string) {
   const [user] = await db.select().from(users).where(eq(sql`lower(${users.email})`, email.toLowerCase())).limit(1);
   if (!user || user.disabled) return;
-  const t = translator(pickLocale(user.locale));
-  const link = await issueLink(user.id, "reset");
-  await sendMail({ to: user.email, ...passwordResetMail(t, { name: user.name, link, minutes: linkLifetime.resetMinutes }) });
+  const locale = pickLocale(user.locale);
+  const { link, expiresAt } = await issueLink(user.id, "reset");
+  const mail = passwordResetMail(translator(locale), dateFormat(locale, await workshopTimeZone()), { name: user.name, link, minutes: linkLifetime.resetMinutes, expiresAt });
+  await sendMail({ to: user.email, ...mail });
 }
 
 export async function sendPasswordResetFor(actor: Actor, id: string) {
   assertCan(actor, "users:manage");
   const user = await findUser(id);
   await requestPasswordReset(user.email);
+}
+
+export type PasswordLinkStatus = "valid" | "used" | "expired" | "unknown";
+
+/**
+ * What an invitation or reset link is worth before anyone types a password: unknown (never issued,
+ * replaced by a newer link, or its account is disabled), used, expired, or valid. Public: the secret is the proof.
+ */
+export async function passwordLinkStatus(secret: string): Promise<PasswordLinkStatus> {
+  if (secret.length < 20 || secret.length > 200) return "unknown";
+  const [row] = await db
+    .select({ usedAt: userTokens.usedAt, expiresAt: userTokens.expiresAt, disabled: users.disabled })
+    .from(userTokens)
+    .innerJoin(users, eq(users.id, userTokens.userId))
+    .where(eq(userTokens.tokenHash, hashSecret(secret)))
+    .limit(1);
+  if (!row || row.disabled) return "unknown";
+  if (row.usedAt) return "used";
+  if (row.expiresAt.getTime() <= Date.now()) return "expired";
+  return "valid";
 }
 
 /** Uses an invitation or reset link once: sets the password and ends every older session. */

@@ -1,4 +1,4 @@
-import type { Translator } from "@/lib/i18n/translator";
+import type { DateFormat, Translator } from "@/lib/i18n/translator";
 
 const escapeHtml = (s: string) =>
   s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
@@ -14,37 +14,37 @@ function layout(paragraphs: string[], link: { href: string; label: string }, foo
   return { html, text };
 }
 
-/** Invitation with a set-password link (subject, text and HTML from the catalogue). */
-export function invitationMail(t: Translator, p: { name: string; inviter: string; role: string; link: string; hours: number }) {
+/** Invitation with a set-password link (subject, text and HTML from the catalogue); times in the workshop's zone. */
+export function invitationMail(t: Translator, d: DateFormat, p: { name: string; inviter: string; role: string; link: string; hours: number; expiresAt: Date }) {
   return {
     subject: t("emails.invite.subject"),
     ...layout(
       [t("emails.invite.greeting", { name: p.name }), t("emails.invite.body", { inviter: p.inviter, role: p.role })],
       { href: p.link, label: t("emails.invite.action") },
-      t("emails.invite.expiry", { hours: p.hours }),
+      t("emails.invite.expiry", { hours: p.hours, until: d.instant(p.expiresAt), timeZone: d.timeZone }),
     ),
   };
 }
 
-export function passwordResetMail(t: Translator, p: { name: string; link: string; minutes: number }) {
+export function passwordResetMail(t: Translator, d: DateFormat, p: { name: string; link: string; minutes: number; expiresAt: Date }) {
   return {
     subject: t("emails.reset.subject"),
     ...layout(
       [t("emails.reset.greeting", { name: p.name }), t("emails.reset.body")],
       { href: p.link, label: t("emails.reset.action") },
-      t("emails.reset.expiry", { minutes: p.minutes }),
+      t("emails.reset.expiry", { minutes: p.minutes, until: d.instant(p.expiresAt), timeZone: d.timeZone }),
     ),
   };
 }
 
 /** To the stamp keepers: someone reported damage to a stamp. */
-export function damageReportMail(t: Translator, p: { code: string; name: string; kind: string; note: string | null; reporter: string; link: string }) {
+export function damageReportMail(t: Translator, d: DateFormat, p: { code: string; name: string; kind: string; note: string | null; reporter: string; link: string; at: Date }) {
   return {
     subject: t("stampEmails.damage.subject", { code: p.code }),
     ...layout(
       [
         t("stampEmails.damage.greeting"),
-        t("stampEmails.damage.body", { reporter: p.reporter, code: p.code, name: p.name, kind: p.kind }),
+        t("stampEmails.damage.body", { reporter: p.reporter, code: p.code, name: p.name, kind: p.kind, when: d.instant(p.at), timeZone: d.timeZone }),
         ...(p.note ? [t("stampEmails.damage.note", { note: p.note })] : []),
       ],
       { href: p.link, label: t("stampEmails.damage.action") },
@@ -54,13 +54,13 @@ export function damageReportMail(t: Translator, p: { code: string; name: string;
 }
 
 /** To a borrower whose check-out is past its due date. */
-export function overdueReminderMail(t: Translator, p: { borrower: string; code: string; name: string; dueOn: string; workstation: string; link: string }) {
+export function overdueReminderMail(t: Translator, d: DateFormat, p: { borrower: string; code: string; name: string; dueOn: string; outAt: Date; workstation: string; link: string }) {
   return {
     subject: t("stampEmails.overdue.subject", { code: p.code }),
     ...layout(
       [
         t("stampEmails.overdue.greeting", { name: p.borrower }),
-        t("stampEmails.overdue.body", { code: p.code, name: p.name, dueOn: p.dueOn, workstation: p.workstation }),
+        t("stampEmails.overdue.body", { code: p.code, name: p.name, dueOn: d.day(p.dueOn), outAt: d.instant(p.outAt), timeZone: d.timeZone, workstation: p.workstation }),
       ],
       { href: p.link, label: t("stampEmails.overdue.action") },
       t("stampEmails.overdue.footer"),

@@ -1,14 +1,29 @@
 import { cookies, headers } from "next/headers";
 import type { AbstractIntlMessages } from "next-intl";
 import { getRequestConfig } from "next-intl/server";
+import { workshopTimeZone } from "@/lib/data/settings";
+import { defaultTimeZone } from "@/lib/validation/settings";
 import { localeCookie, pickLocale } from "./config";
 import { messagesFor } from "./messages";
 
+/** The workshop's time zone (admin settings); the default one if the settings cannot be read, so pages still render. */
+async function timeZone(): Promise<string> {
+  try {
+    return await workshopTimeZone();
+  } catch (error) {
+    console.error("workshop settings could not be read; showing times in the default zone", error);
+    return defaultTimeZone;
+  }
+}
+
 // No locale in the URL: the language follows the user's choice (a cookie set from their
-// profile), then the browser's first language.
+// profile), then the browser's first language. The time zone is the workshop's, for every page and
+// (through NextIntlClientProvider) every client component: the one place dates get their zone and
+// their "now".
 export default getRequestConfig(async () => {
   const fromCookie = (await cookies()).get(localeCookie)?.value;
   const fromBrowser = (await headers()).get("accept-language")?.split(",")[0]?.split("-")[0];
   const locale = pickLocale(fromCookie ?? fromBrowser);
-  return { locale, messages: messagesFor(locale) as AbstractIntlMessages, timeZone: "Asia/Jakarta" };
+  // `now` too: relative times ("5 seconds ago") then read the same on the server and while the page hydrates.
+  return { locale, messages: messagesFor(locale) as AbstractIntlMessages, timeZone: await timeZone(), now: new Date() };
 });

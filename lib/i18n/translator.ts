@@ -1,4 +1,4 @@
-import { createTranslator, type AbstractIntlMessages } from "next-intl";
+import { createFormatter, createTranslator, type AbstractIntlMessages } from "next-intl";
 import { type Locale, defaultLocale } from "./config";
 import { messagesFor } from "./messages";
 
@@ -15,4 +15,22 @@ export function translator(locale: Locale = defaultLocale): Translator {
   const translate = ((key: string, values?: Values) => t(key as never, values as never)) as Translator;
   translate.has = (key: string) => t.has(key as never);
   return translate;
+}
+
+/** Dates for code outside React (e-mails), in the workshop's time zone (lib/data/settings.ts workshopTimeZone). */
+export interface DateFormat {
+  timeZone: string;
+  /** A moment, e.g. when a link expires: date and time in the zone. */
+  instant(at: Date): string;
+  /** A calendar date kept as YYYY-MM-DD (a due date): the same day in every zone. */
+  day(iso: string): string;
+}
+
+export function dateFormat(locale: Locale, timeZone: string): DateFormat {
+  const format = createFormatter({ locale, timeZone });
+  return {
+    timeZone,
+    instant: (at) => format.dateTime(at, { dateStyle: "medium", timeStyle: "short" }),
+    day: (iso) => format.dateTime(new Date(`${iso}T00:00:00Z`), { dateStyle: "medium", timeZone: "UTC" }),
+  };
 }

@@ -24,5 +24,16 @@ export {
   type CoverageResult,
   type OverlayOptions,
 } from "./coverage";
-export { motifHashes, perceptualHash, mirroredHash, dctHash, hamming, nearest, type MotifHashes, type HashCandidate, type HashMatch } from "./phash";
+export {
+  motifHashes,
+  perceptualHash,
+  mirroredHash,
+  dctHash,
+  hamming,
+  nearest,
+  type MotifHashes,
+  type HashCandidate,
+  type HashMatch,
+} from "./phash";
+export { LOOK_ALIKE_MAX_BITS, MIRROR_TWIN_MARGIN_BITS } from "./look-alikes";
 export { createScanLimiter, scanLimiter, type ScanLimiter } from "./limiter";

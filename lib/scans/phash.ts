@@ -136,15 +136,22 @@ export interface HashMatch<Id> {
 }
 
 /**
- * The k candidates nearest to the target by Hamming distance, each in its better orientation:
- * min(hamming(target.hash, c.hash), hamming(target.mirroredHash, c.hash)), ties going to "same". Sorted by
- * distance, then by candidate order; `maxDistance` drops candidates farther than it.
+ * The k candidates nearest to the target by Hamming distance: min(hamming(target.hash, c.hash),
+ * hamming(target.mirroredHash, c.hash)). The orientation is "mirrored" only when the mirrored comparison is
+ * at least `mirrorMarginBits` (default 1) closer than the straight one, else "same". Sorted by distance, then
+ * by candidate order; `maxDistance` drops candidates farther than it.
  */
-export function nearest<Id>(target: MotifHashes, candidates: readonly HashCandidate<Id>[], k: number, options: { maxDistance?: number } = {}): HashMatch<Id>[] {
+export function nearest<Id>(
+  target: MotifHashes,
+  candidates: readonly HashCandidate<Id>[],
+  k: number,
+  options: { maxDistance?: number; mirrorMarginBits?: number } = {},
+): HashMatch<Id>[] {
+  const margin = options.mirrorMarginBits ?? 1;
   const matches = candidates.map((candidate, index) => {
     const same = hamming(target.hash, candidate.hash);
     const mirrored = hamming(target.mirroredHash, candidate.hash);
-    const orientation: HashMatch<Id>["orientation"] = mirrored < same ? "mirrored" : "same";
+    const orientation: HashMatch<Id>["orientation"] = same - mirrored >= margin ? "mirrored" : "same";
     return { id: candidate.id, distance: Math.min(same, mirrored), orientation, index };
   });
   return matches

@@ -142,6 +142,8 @@ export const stampListQuerySchema = z
     out: boolParam.optional(),
     overdue: boolParam.optional(),
     tag: tag.optional(),
+    /** Only stamps whose coverage is under 1 % (see lib/stamps/coverage.ts), for keepers to check. */
+    lowCoverage: boolParam.optional(),
     minWidthMm: sizeParam.optional(),
     maxWidthMm: sizeParam.optional(),
     minHeightMm: sizeParam.optional(),

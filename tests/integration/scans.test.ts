@@ -5,7 +5,9 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { seedScans } from "@/scripts/seed/scans";
 import { stampEvents, stampScans, stamps, type Stamp } from "@/db/schema";
 import { objectStore } from "@/lib/s3";
+import { motifSvg, renderScan } from "@/scripts/seed/scan-art";
 import { scanRejectedStatus } from "@/lib/errors";
+import { LOOK_ALIKE_MAX_BITS } from "@/lib/scans";
 import { createUser, db } from "../helpers/db";
 import { testEnv } from "../helpers/env";
 import { hostileFiles, hostileLimits } from "../helpers/hostile-files";
@@ -256,6 +258,36 @@ describe("similar stamps", () => {
     const match = res.body.stamps.find((s: { code: string }) => s.code === twin.code);
     expect(match).toMatchObject({ orientation: "mirrored" });
     expect(match.distance).toBeLessThanOrEqual(4);
+  });
+});
+
+describe("look-alikes of demo motifs", () => {
+  // Invented demo art (db/seed/scan-art.ts) that a 20-bit cut-off offered as look-alikes: a vine drawing for a
+  // four-petal one, labelled "mirror twin" (26 bits straight, 20 mirrored), and a vine drawing for a lotus photo
+  // (18 bits). Unrelated hashes sit about 32 bits apart; only clearly closer matches count.
+  const art = (family: "petals" | "vine" | "lotus", seed: number, style: "print" | "face", dpi = 60) =>
+    renderScan(motifSvg({ seed, family, style, widthMm: 150, heightMm: 150 }), dpi, { format: style === "print" ? "png" : "jpeg" });
+  const similarCodes = async (stamp: Stamp) => {
+    const res = await api("GET", `/api/v1/stamps/${stamp.code}/similar`, { session: planner });
+    expect(res.status).toBe(200);
+    return res.body.stamps as { code: string; distance: number; orientation: string }[];
+  };
+
+  it("leave out unrelated motifs near the old cut-off and keep a new scan of the same motif", async () => {
+    const [petals, vine, lotus, vine3, vine3Again] = await Promise.all(
+      ["PET", "VIN", "LOT", "VN3", "VN3B"].map((name) => createStampRow({ code: `${prefix}-LA${name}`, widthMm: 150, heightMm: 150 })),
+    );
+    expect((await upload(petals, await art("petals", 2, "print"))).status).toBe(201);
+    expect((await upload(vine, await art("vine", 1, "print"))).status).toBe(201);
+    expect((await upload(lotus, await art("lotus", 1, "face"), { kind: "face", fileName: "lotus.jpg" })).status).toBe(201);
+    expect((await upload(vine3, await art("vine", 3, "print"))).status).toBe(201);
+    expect((await upload(vine3Again, await art("vine", 3, "print", 100))).status).toBe(201);
+
+    expect((await similarCodes(petals)).map((s) => s.code)).not.toContain(vine.code);
+    expect((await similarCodes(lotus)).map((s) => s.code)).not.toContain(vine3.code);
+    const again = (await similarCodes(vine3)).find((s) => s.code === vine3Again.code);
+    expect(again).toMatchObject({ orientation: "same" });
+    expect(again!.distance).toBeLessThanOrEqual(LOOK_ALIKE_MAX_BITS);
   });
 });
 

@@ -4,6 +4,7 @@ import { can, permissionTable, roles } from "@/lib/permissions";
 // The rows of SPEC section 2, written out again by hand so a slip in the table shows here.
 const spec: Record<string, string[]> = {
   "users:manage": ["admin"],
+  "settings:manage": ["admin"], // workshop settings (time zone, currency, cloth presets, stamping rate)
   "stamps:write": ["admin", "keeper"],
   "stamps:request": ["admin", "keeper", "planner", "waxmaster", "designer"],
   "plans:write": ["admin", "planner"],

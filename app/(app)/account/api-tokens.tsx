@@ -1,6 +1,6 @@
 "use client";
 
-import { useFormatter, useTranslations } from "next-intl";
+import { useFormatter, useNow, useTranslations } from "next-intl";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
@@ -13,6 +13,8 @@ export function ApiTokens() {
   const t = useTranslations("account.tokens");
   const common = useTranslations("common");
   const format = useFormatter();
+  // relativeTime measures from this moment; without one next-intl warns and guesses.
+  const now = useNow({ updateInterval: 60_000 });
   const { data, error, isLoading, mutate } = useApiTokens();
   const [name, setName] = useState("");
   const [busy, setBusy] = useState(false);
@@ -97,7 +99,7 @@ export function ApiTokens() {
                 <p className="font-medium text-stone-900">{token.name}</p>
                 <p className="text-xs text-stone-500">
                   {t("prefix")} <code>{token.prefix}…</code> · {t("created")} {format.dateTime(new Date(token.createdAt), { dateStyle: "medium" })} · {t("lastUsed")}{" "}
-                  {token.lastUsedAt ? format.relativeTime(new Date(token.lastUsedAt)) : t("never")}
+                  {token.lastUsedAt ? format.relativeTime(new Date(token.lastUsedAt), now) : t("never")}
                 </p>
               </div>
               <Button type="button" variant="danger" className="px-2.5 py-1 text-xs" onClick={() => revoke(token)}>

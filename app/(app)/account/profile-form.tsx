@@ -19,7 +19,7 @@ export function ProfileForm({ name, unitSystem }: { name: string; unitSystem: "m
       </Field>
       <Field id="profile-units" label={t("units")} errors={state.fieldErrors?.unitSystem}>
         {(aria) => (
-          <select {...aria} name="unitSystem" defaultValue={state.values?.unitSystem ?? unitSystem}>
+          <select {...aria} key={state.values?.unitSystem ?? unitSystem} name="unitSystem" defaultValue={state.values?.unitSystem ?? unitSystem}>
             <option value="metric">{t("unitsMetric")}</option>
             <option value="imperial">{t("unitsImperial")}</option>
           </select>

@@ -5,6 +5,7 @@ import { revalidatePath } from "next/cache";
 import { z } from "@/lib/zod";
 import type { FormState } from "@/lib/actions/form-state";
 import { runForm } from "@/lib/actions/run-form";
+import { revokeAnyApiToken } from "@/lib/data/api-tokens";
 import { inviteUser, resendInvitation, sendPasswordResetFor, updateUser } from "@/lib/data/users";
 import { requirePermission } from "@/lib/session";
 import { idParamSchema, inviteUserSchema, roleSchema } from "@/lib/validation/users";
@@ -44,5 +45,15 @@ export async function userRowAction(_prev: FormState, formData: FormData): Promi
     }
     revalidatePath("/admin");
     return { status: "success", message };
+  });
+}
+
+/** Revokes someone's API token from the administrators' list. */
+export async function revokeTokenAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  return runForm(formData, idParamSchema, async ({ id }) => {
+    const actor = await requirePermission("users:manage");
+    const revoked = await revokeAnyApiToken(actor, id);
+    revalidatePath("/admin");
+    return { status: "success", message: (await getTranslations("admin"))("tokens.revoked", { name: revoked.name, owner: revoked.ownerName }) };
   });
 }

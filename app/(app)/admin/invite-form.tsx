@@ -29,7 +29,7 @@ export function InviteForm() {
       </Field>
       <Field id="invite-role" label={t("admin.invite.role")} errors={state.fieldErrors?.role}>
         {(aria) => (
-          <select {...aria} name="role" defaultValue={state.status === "error" ? state.values?.role : "designer"}>
+          <select {...aria} key={state.status === "error" ? state.values?.role : "designer"} name="role" defaultValue={state.status === "error" ? state.values?.role : "designer"}>
             {roles.map((role) => (
               <option key={role} value={role}>
                 {t(`roles.${role}.name`)}

@@ -2,10 +2,12 @@ import type { Metadata } from "next";
 import { getTranslations } from "next-intl/server";
 import { Forbidden } from "@/components/shell/forbidden";
 import { PageHeader, Panel } from "@/components/ui/panel";
+import { listAllApiTokens } from "@/lib/data/api-tokens";
 import { listUsers } from "@/lib/data/users";
 import { env } from "@/lib/env";
 import { can } from "@/lib/permissions";
 import { requirePageActor } from "@/lib/session";
+import { AllTokens } from "./all-tokens";
 import { InviteForm } from "./invite-form";
 import { UsersTable } from "./users-table";
 
@@ -16,7 +18,7 @@ export async function generateMetadata(): Promise<Metadata> {
 export default async function PeoplePage() {
   const actor = await requirePageActor();
   if (!can(actor.role, "users:manage")) return <Forbidden />;
-  const [t, users] = await Promise.all([getTranslations("admin"), listUsers(actor)]);
+  const [t, users, tokens] = await Promise.all([getTranslations("admin"), listUsers(actor), listAllApiTokens(actor)]);
   const mailViewer = env().MAIL_VIEWER_URL;
   return (
     <>
@@ -36,6 +38,9 @@ export default async function PeoplePage() {
           <InviteForm />
         </Panel>
         <UsersTable users={users} selfId={actor.id} />
+        <Panel title={t("tokens.title")} intro={t("tokens.intro")}>
+          <AllTokens tokens={tokens} />
+        </Panel>
       </div>
     </>
   );

@@ -18,11 +18,12 @@ import { useTranslations } from "next-intl";
 import { useActionState, useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { cn } from "@/components/ui/cn";
+import { ConfirmDialog, type ConfirmRequest } from "@/components/ui/confirm-dialog";
 import { Notice } from "@/components/ui/notice";
 import { SortableTableHead } from "@/components/ui/sortable-table-head";
-import { initialFormState } from "@/lib/actions/form-state";
+import { initialFormState, type FormState } from "@/lib/actions/form-state";
 import type { UserDto } from "@/lib/contracts/people";
-import { roles } from "@/lib/permissions";
+import { roles, type Role } from "@/lib/permissions";
 import { userRowAction } from "./actions";
 
 const features = tableFeatures({
@@ -36,10 +37,34 @@ const features = tableFeatures({
 });
 const column = createColumnHelper<typeof features, UserDto>();
 
+/** A row form waiting for the administrator's answer in the dialog. */
+interface Pending {
+  form: HTMLFormElement;
+  request: ConfirmRequest;
+  /** Puts the row back as it was when the answer is no. */
+  undo?: () => void;
+}
+
 export function UsersTable({ users, selfId }: { users: UserDto[]; selfId: string }) {
   const t = useTranslations();
-  const [state, action, pending] = useActionState(userRowAction, initialFormState);
+  // Each answer is stamped, so a refused row can start over from the saved role (see the role form's key).
+  const [state, action, pending] = useActionState(async (previous: FormState, formData: FormData) => {
+    const answer = await userRowAction(previous, formData);
+    return { ...answer, data: { ...answer.data, answeredAt: String(Date.now()) } };
+  }, initialFormState);
   const [filter, setFilter] = useState("");
+  const [asking, setAsking] = useState<Pending | null>(null);
+
+  /** Stops a role change or disable until the dialog is answered; a confirmed form is marked and submitted again. */
+  const askFirst = (event: React.FormEvent<HTMLFormElement>, request: ConfirmRequest, undo?: () => void) => {
+    const form = event.currentTarget;
+    if (form.hasAttribute("data-confirmed")) {
+      form.removeAttribute("data-confirmed");
+      return;
+    }
+    event.preventDefault();
+    setAsking({ form, request, undo });
+  };
 
   const columns = useMemo(
     () =>
@@ -58,15 +83,38 @@ export function UsersTable({ users, selfId }: { users: UserDto[]; selfId: string
           header: () => t("admin.columns.role"),
           cell: (info) => {
             const user = info.row.original;
+            const self = user.id === selfId;
+            // A refused role change or disable shows its message beside this row's role.
+            const refusedHere = state.status === "error" && state.values?.id === user.id;
             return (
-              <form action={action} className="flex items-center gap-2">
+              <form
+                key={`${user.role}-${refusedHere ? state.data?.answeredAt : ""}`}
+                action={action}
+                className="flex items-center gap-2"
+                onSubmit={(e) => {
+                  const select = e.currentTarget.elements.namedItem("role") as HTMLSelectElement;
+                  const role = t(`roles.${select.value as Role}.name`);
+                  askFirst(
+                    e,
+                    {
+                      title: t("admin.confirm.roleTitle", { name: user.name }),
+                      body: t("admin.confirm.roleBody", { name: user.name, from: t(`roles.${user.role}.name`), role }),
+                      confirmLabel: t("admin.confirm.roleConfirm", { role }),
+                      tone: select.value === "admin" ? "danger" : "primary",
+                    },
+                    () => (select.value = user.role),
+                  );
+                }}
+              >
                 <input type="hidden" name="id" value={user.id} />
                 <input type="hidden" name="intent" value="role" />
                 <select
                   name="role"
                   aria-label={t("admin.changeRole", { name: user.name })}
+                  aria-invalid={refusedHere ? true : undefined}
+                  aria-describedby={[self ? `role-${user.id}-hint` : null, refusedHere ? `role-${user.id}-error` : null].filter(Boolean).join(" ") || undefined}
                   defaultValue={user.role}
-                  disabled={pending || user.id === selfId}
+                  disabled={pending || self}
                   onChange={(e) => e.currentTarget.form?.requestSubmit()}
                   className="rounded-md border border-stone-300 bg-white px-2 py-1 text-sm"
                 >
@@ -76,6 +124,16 @@ export function UsersTable({ users, selfId }: { users: UserDto[]; selfId: string
                     </option>
                   ))}
                 </select>
+                {self ? (
+                  <p id={`role-${user.id}-hint`} className="max-w-48 text-xs text-stone-500">
+                    {t("admin.ownRole")}
+                  </p>
+                ) : null}
+                {refusedHere ? (
+                  <p id={`role-${user.id}-error`} className="max-w-56 text-xs text-red-700">
+                    {state.fieldErrors?.role?.join(" ") ?? state.message}
+                  </p>
+                ) : null}
               </form>
             );
           },
@@ -96,7 +154,14 @@ export function UsersTable({ users, selfId }: { users: UserDto[]; selfId: string
           cell: ({ row }) => {
             const u = row.original;
             const button = (intent: string, label: string, variant: "secondary" | "danger" = "secondary") => (
-              <form action={action}>
+              <form
+                action={action}
+                onSubmit={
+                  intent === "disable"
+                    ? (e) => askFirst(e, { title: t("admin.confirm.disableTitle", { name: u.name }), body: t("admin.confirm.disableBody", { name: u.name }), confirmLabel: t("admin.disable"), tone: "danger" })
+                    : undefined
+                }
+              >
                 <input type="hidden" name="id" value={u.id} />
                 <input type="hidden" name="email" value={u.email} />
                 <input type="hidden" name="intent" value={intent} />
@@ -114,7 +179,7 @@ export function UsersTable({ users, selfId }: { users: UserDto[]; selfId: string
           },
         }),
       ]),
-    [t, action, pending, selfId],
+    [t, action, pending, selfId, state],
   );
 
   const table = useTable({
@@ -142,6 +207,21 @@ export function UsersTable({ users, selfId }: { users: UserDto[]; selfId: string
         <p className="text-sm text-stone-600">{t("admin.count", { count: rows.length })}</p>
       </div>
       {state.message ? <Notice tone={state.status === "success" ? "success" : "error"}>{state.message}</Notice> : null}
+      <ConfirmDialog
+        request={asking?.request ?? null}
+        cancelLabel={t("admin.confirm.cancel")}
+        onCancel={() => {
+          asking?.undo?.();
+          setAsking(null);
+        }}
+        onConfirm={() => {
+          if (!asking) return;
+          const { form } = asking;
+          form.setAttribute("data-confirmed", "yes");
+          form.requestSubmit();
+          setAsking(null);
+        }}
+      />
       <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
         <table className="min-w-full divide-y divide-stone-200 text-sm">
           <SortableTableHead headerGroups={table.getHeaderGroups()} />

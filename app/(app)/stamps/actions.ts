@@ -7,10 +7,12 @@ import { z } from "@/lib/zod";
 import type { FormState } from "@/lib/actions/form-state";
 import { runForm } from "@/lib/actions/run-form";
 import { createLocation, deleteLocation, updateLocation } from "@/lib/data/locations";
+import { locationLabel } from "@/lib/data/stamp-events";
 import { sendOverdueReminders } from "@/lib/data/stamp-mail";
 import { AppError } from "@/lib/errors";
 import { changeCondition, checkOutStamp, createStamp, deleteStamp, reportDamage, returnStamp, updateStamp } from "@/lib/data/stamps";
 import { requirePermission } from "@/lib/session";
+import { isLowCoverage, ratioToPercent } from "@/lib/stamps/coverage";
 import { inchesToMm, ouncesToGrams } from "@/lib/units";
 import {
   checkoutSchema,
@@ -74,13 +76,35 @@ function stampInput(f: FormData, mode: "create" | "update") {
   return input;
 }
 
-/** The percentage field's errors show under its own name. */
-function renameCoverage(state: FormState): FormState {
-  if (state.fieldErrors?.coverageRatio) {
-    state.fieldErrors.coveragePct = state.fieldErrors.coverageRatio;
-    delete state.fieldErrors.coverageRatio;
+/**
+ * The form takes coverage in %, the schema a ratio: the percentage field's errors show under its own
+ * name and speak of percent, so the person sees one unit on screen and in the message.
+ */
+async function renameCoverage(state: FormState): Promise<FormState> {
+  const errors = state.fieldErrors?.coverageRatio;
+  if (errors) {
+    const t = await getTranslations();
+    const ratioMessage = t("validation.coverageRatio");
+    state.fieldErrors!.coveragePct = errors.map((m) => (m === ratioMessage ? t("validation.coveragePct") : m));
+    delete state.fieldErrors!.coverageRatio;
   }
   return state;
+}
+
+/**
+ * Coverage under 1 % is saved only when the person ticked "keep it" (confirmLowCoverage): until then the
+ * form says what the value means and what they may have meant, beside the field.
+ */
+async function lowCoverageUnconfirmed(formData: FormData, ratio: number | null | undefined): Promise<FormState | null> {
+  if (!isLowCoverage(ratio) || formData.get("confirmLowCoverage") === "on") return null;
+  const t = await getTranslations();
+  const pct = ratioToPercent(ratio);
+  return {
+    status: "error",
+    message: t("common.formHasErrors"),
+    fieldErrors: { coveragePct: [ratio === 0 ? t("validation.coverageZero") : t("validation.coverageLow", { pct, meant: ratioToPercent(ratio * 100) })] },
+    data: { lowCoverage: "1" },
+  };
 }
 
 export async function createStampAction(_prev: FormState, formData: FormData): Promise<FormState> {
@@ -90,6 +114,8 @@ export async function createStampAction(_prev: FormState, formData: FormData): P
     createStampSchema,
     async (input) => {
       const actor = await requirePermission("stamps:write");
+      const unconfirmed = await lowCoverageUnconfirmed(formData, input.coverageRatio);
+      if (unconfirmed) return unconfirmed;
       code = (await createStamp(actor, input)).code;
     },
     (f) => stampInput(f, "create"),
@@ -111,6 +137,8 @@ export async function updateStampAction(_prev: FormState, formData: FormData): P
     async (input) => {
       const actor = await requirePermission("stamps:write");
       if (!original.success) return { status: "error", message: (await getTranslations())("errors.notFound") };
+      const unconfirmed = await lowCoverageUnconfirmed(formData, input.coverageRatio);
+      if (unconfirmed) return unconfirmed;
       try {
         code = (await updateStamp(actor, original.data, input)).code;
       } catch (error) {
@@ -140,7 +168,7 @@ export async function deleteStampAction(_prev: FormState, formData: FormData): P
   });
   if (done) {
     revalidatePath("/stamps");
-    redirect("/stamps?deleted=1");
+    redirect(`/stamps?deleted=${encodeURIComponent(text(formData, "code").trim().toUpperCase())}`);
   }
   return state;
 }
@@ -163,8 +191,15 @@ async function onStamp<S extends z.ZodType>(
 
 const optional = (f: FormData, name: string) => text(f, name).trim() || undefined;
 
+/** After a check-out or return the record opens again with a note of what happened (who has it now, or where it went). */
+function showOnRecord(state: FormState, formData: FormData, saved: "checkedOut" | "returned"): FormState {
+  const code = stampCodeSchema.safeParse(text(formData, "code"));
+  if (state.status === "success" && code.success) redirect(`/stamps/${encodeURIComponent(code.data)}?saved=${saved}`);
+  return state;
+}
+
 export async function checkoutAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  return onStamp(
+  const state = await onStamp(
     formData,
     checkoutSchema,
     (f) => ({
@@ -181,10 +216,11 @@ export async function checkoutAction(_prev: FormState, formData: FormData): Prom
       return (await getTranslations())("stamps.checkout.done", { name: out.borrowerName });
     },
   );
+  return showOnRecord(state, formData, "checkedOut");
 }
 
 export async function returnAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  return onStamp(
+  const state = await onStamp(
     formData,
     returnSchema,
     (f) => {
@@ -197,6 +233,7 @@ export async function returnAction(_prev: FormState, formData: FormData): Promis
       return (await getTranslations())("stamps.return.done");
     },
   );
+  return showOnRecord(state, formData, "returned");
 }
 
 export async function reportDamageAction(_prev: FormState, formData: FormData): Promise<FormState> {
@@ -242,14 +279,18 @@ export async function locationRowAction(_prev: FormState, formData: FormData): P
     locationIdParamSchema.extend({ intent: z.literal("delete") }),
     locationIdParamSchema.extend({ intent: z.literal("describe"), description: z.string().trim().max(300, "validation.tooLong") }),
   ]);
-  return runForm(formData, schema, async (input) => {
+  let deleted: { site: string; code: string } | null = null;
+  const state = await runForm(formData, schema, async (input) => {
     const actor = await requirePermission("stamps:write");
     const t = await getTranslations();
-    if (input.intent === "delete") await deleteLocation(actor, input.id);
+    if (input.intent === "delete") deleted = await deleteLocation(actor, input.id);
     else await updateLocation(actor, input.id, { description: input.description || null });
     revalidatePath("/stamps/locations");
     return { status: "success", message: input.intent === "delete" ? t("locations.deleted") : t("locations.saved") };
   });
+  // The row goes away with the location, and its message with it: the page says it instead.
+  if (deleted) redirect(`/stamps/locations?deleted=${encodeURIComponent(locationLabel(deleted)!)}`);
+  return state;
 }
 
 // --- reminders -----------------------------------------------------------------------------------
@@ -261,6 +302,7 @@ export async function sendRemindersAction(_prev: FormState, formData: FormData):
     revalidatePath("/stamps/out");
     const t = await getTranslations();
     const parts = [t("overdue.sent", { count: result.sent.length })];
+    if (result.skipped.length) parts.push(t("overdue.skipped", { count: result.skipped.length, hours: result.gapHours, names: result.skipped.map((s) => `${s.borrowerName} (${s.code})`).join(", ") }));
     if (result.withoutEmail.length) parts.push(t("overdue.withoutEmail", { names: result.withoutEmail.map((w) => `${w.borrowerName} (${w.code})`).join(", ") }));
     if (result.failed.length) parts.push(t("overdue.failed", { count: result.failed.length }));
     return { status: result.failed.length ? "error" : "success", message: parts.join(" ") };

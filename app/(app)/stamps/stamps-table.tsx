@@ -25,7 +25,9 @@ import { Notice } from "@/components/ui/notice";
 import { SortableTableHead } from "@/components/ui/sortable-table-head";
 import { stampUrls, type LocationDto } from "@/lib/contracts/stamps";
 import type { StampListItem } from "@/lib/contracts/stamps";
+import { isLowCoverage } from "@/lib/stamps/coverage";
 import type { UnitSystem } from "@/lib/stamps/format";
+import { ApiError } from "@/lib/swr/fetcher";
 import { useStamps } from "@/lib/swr/use-stamps";
 import { inchesToMm, mmToInches } from "@/lib/units";
 import { stampConditions } from "@/lib/validation/stamps";
@@ -48,8 +50,8 @@ const sortKeyOf: Record<string, string> = {
 };
 const columnOfSortKey = Object.fromEntries(Object.entries(sortKeyOf).map(([c, k]) => [k, c]));
 
-const defaultHidden: ColumnVisibilityState = { maker: false, madeOn: false, tags: false, impressions: false, updated: false, face: false };
-const filterKeys = ["q", "condition", "site", "location", "face", "out", "overdue", "tag", "minWidthMm", "maxWidthMm", "minHeightMm", "maxHeightMm"];
+const defaultHidden: ColumnVisibilityState = { maker: false, madeOn: false, tags: false, impressions: false, updated: false, face: false, coverage: false };
+const filterKeys = ["q", "condition", "site", "location", "face", "out", "overdue", "tag", "lowCoverage", "minWidthMm", "maxWidthMm", "minHeightMm", "maxHeightMm"];
 
 // Column choice lives in the browser (per person and device), read without a hydration mismatch.
 const columnsKey = "capgrid.stamps.columns";
@@ -143,7 +145,10 @@ export function StampsTable({
     return query.toString();
   }, [apiQuery]);
 
-  const { data, error, isLoading, isValidating, mutate } = useStamps(apiQuery);
+  const { data: answer, error, isLoading, isValidating, mutate } = useStamps(apiQuery);
+  // Refused filters show no rows: the rows of the last good answer would look like the result.
+  const data = error ? undefined : answer;
+  const refused: Record<string, string[]> = error instanceof ApiError ? (error.fields ?? {}) : {};
   const filtered = filterKeys.some((k) => params.get(k));
 
   const sorting: SortingState = useMemo(() => {
@@ -161,13 +166,17 @@ export function StampsTable({
     setParams({ page: next.pageIndex > 0 ? String(next.pageIndex + 1) : null, pageSize: next.pageSize !== 50 ? String(next.pageSize) : null }, next.pageSize !== pageSize);
   };
   const storedColumns = useSyncExternalStore(columnsStore.subscribe, columnsStore.get, columnsStore.server);
+  const lowCoverage = params.get("lowCoverage") === "true";
   const columnVisibility: ColumnVisibilityState = useMemo(() => {
+    let chosen = defaultHidden;
     try {
-      return storedColumns ? { ...defaultHidden, ...JSON.parse(storedColumns) } : defaultHidden;
+      if (storedColumns) chosen = { ...defaultHidden, ...JSON.parse(storedColumns) };
     } catch {
-      return defaultHidden;
+      // an unreadable choice falls back to the default columns
     }
-  }, [storedColumns]);
+    // Checking low coverage needs the value in view.
+    return lowCoverage ? { ...chosen, coverage: true } : chosen;
+  }, [storedColumns, lowCoverage]);
 
   const columns = useMemo(
     () =>
@@ -245,6 +254,19 @@ export function StampsTable({
             </span>
           ),
         }),
+        column.accessor((row) => row.coverageRatio ?? -1, {
+          id: "coverage",
+          header: () => t("stamps.columns.coverage"),
+          enableSorting: false,
+          cell: ({ row }) =>
+            row.original.coverageRatio === null ? (
+              <span className="text-stone-400">—</span>
+            ) : (
+              <span className={cn("tabular-nums", isLowCoverage(row.original.coverageRatio) && "font-medium text-amber-800")}>
+                {format.number(row.original.coverageRatio, { style: "percent", maximumFractionDigits: 2 })}
+              </span>
+            ),
+        }),
         column.accessor("impressionsCount", {
           id: "impressions",
           header: () => t("stamps.columns.impressions"),
@@ -284,6 +306,25 @@ export function StampsTable({
   const toUnits = (mm: string | null) => (mm ? String(unitSystem === "imperial" ? Number(mmToInches(Number(mm)).toFixed(2)) : Number(mm)) : "");
   const fromUnits = (value: string) => (value === "" || Number.isNaN(Number(value)) ? null : String(Math.round((unitSystem === "imperial" ? inchesToMm(Number(value)) : Number(value)) * 10) / 10));
   const unit = unitSystem === "imperial" ? "in" : "mm";
+  const filterLabels: Record<string, string> = {
+    q: t("stamps.filters.search"),
+    condition: t("stamps.filters.condition"),
+    site: t("stamps.filters.site"),
+    location: t("stamps.filters.location"),
+    face: t("stamps.filters.face"),
+    out: t("stamps.filters.out"),
+    overdue: t("stamps.filters.out"),
+    tag: t("stamps.columns.tags"),
+    lowCoverage: t("stamps.table.lowCoverageFilter"),
+    minWidthMm: t("stamps.filters.width", { unit }),
+    maxWidthMm: t("stamps.filters.width", { unit }),
+    minHeightMm: t("stamps.filters.height", { unit }),
+    maxHeightMm: t("stamps.filters.height", { unit }),
+  };
+  const refusedText = Object.entries(refused).map(([field, messages]) => t("stamps.filters.fieldProblem", { field: filterLabels[field] ?? field, problem: messages.join(" ") }));
+  const rangeErrors = (a: string, b: string) => [...(refused[a] ?? []), ...(refused[b] ?? [])];
+  const widthErrors = rangeErrors("minWidthMm", "maxWidthMm");
+  const heightErrors = rangeErrors("minHeightMm", "maxHeightMm");
   const outValue = params.get("overdue") === "true" ? "overdue" : params.get("out") ?? "";
 
   return (
@@ -374,16 +415,18 @@ export function StampsTable({
         <fieldset className="flex flex-col gap-1 text-xs font-medium text-stone-700">
           <legend className="mb-1">{t("stamps.filters.width", { unit })}</legend>
           <span className="flex items-center gap-1">
-            <RangeInput label={t("stamps.filters.widthFrom", { unit })} value={toUnits(params.get("minWidthMm"))} onCommit={(v) => setParams({ minWidthMm: fromUnits(v) })} />–
-            <RangeInput label={t("stamps.filters.widthTo", { unit })} value={toUnits(params.get("maxWidthMm"))} onCommit={(v) => setParams({ maxWidthMm: fromUnits(v) })} />
+            <RangeInput label={t("stamps.filters.widthFrom", { unit })} value={toUnits(params.get("minWidthMm"))} onCommit={(v) => setParams({ minWidthMm: fromUnits(v) })} errorId={widthErrors.length ? "filter-width-error" : undefined} />–
+            <RangeInput label={t("stamps.filters.widthTo", { unit })} value={toUnits(params.get("maxWidthMm"))} onCommit={(v) => setParams({ maxWidthMm: fromUnits(v) })} errorId={widthErrors.length ? "filter-width-error" : undefined} />
           </span>
+          <RangeError id="filter-width-error" messages={widthErrors} />
         </fieldset>
         <fieldset className="flex flex-col gap-1 text-xs font-medium text-stone-700">
           <legend className="mb-1">{t("stamps.filters.height", { unit })}</legend>
           <span className="flex items-center gap-1">
-            <RangeInput label={t("stamps.filters.heightFrom", { unit })} value={toUnits(params.get("minHeightMm"))} onCommit={(v) => setParams({ minHeightMm: fromUnits(v) })} />–
-            <RangeInput label={t("stamps.filters.heightTo", { unit })} value={toUnits(params.get("maxHeightMm"))} onCommit={(v) => setParams({ maxHeightMm: fromUnits(v) })} />
+            <RangeInput label={t("stamps.filters.heightFrom", { unit })} value={toUnits(params.get("minHeightMm"))} onCommit={(v) => setParams({ minHeightMm: fromUnits(v) })} errorId={heightErrors.length ? "filter-height-error" : undefined} />–
+            <RangeInput label={t("stamps.filters.heightTo", { unit })} value={toUnits(params.get("maxHeightMm"))} onCommit={(v) => setParams({ maxHeightMm: fromUnits(v) })} errorId={heightErrors.length ? "filter-height-error" : undefined} />
           </span>
+          <RangeError id="filter-height-error" messages={heightErrors} />
         </fieldset>
         {filtered ? (
           <Button type="button" variant="ghost" onClick={() => go(pathname)}>
@@ -394,7 +437,15 @@ export function StampsTable({
 
       <div className="flex flex-wrap items-center justify-between gap-3">
         <p className="text-sm text-stone-600" data-testid="stamp-count" aria-live="polite">
-          {isLoading ? t("common.loading") : t("stamps.table.count", { first, last, total })}
+          {isLoading ? t("common.loading") : error ? t("stamps.table.refused") : t("stamps.table.count", { first, last, total })}
+          {lowCoverage ? (
+            <span className="ml-2 rounded bg-amber-100 px-1.5 text-xs text-amber-900">
+              {t("stamps.table.lowCoverageFilter")}{" "}
+              <button type="button" className="underline" onClick={() => setParams({ lowCoverage: null })}>
+                {t("stamps.filters.remove")}
+              </button>
+            </span>
+          ) : null}
           {params.get("tag") ? (
             <span className="ml-2 rounded bg-soga-50 px-1.5 text-xs text-soga-700">
               {t("stamps.table.tagFilter", { tag: params.get("tag")! })}{" "}
@@ -432,7 +483,7 @@ export function StampsTable({
 
       {error ? (
         <Notice tone="error">
-          {error.message}{" "}
+          {refusedText.length ? refusedText.join(" ") : error.message}{" "}
           <button type="button" className="underline" onClick={() => mutate()}>
             {t("common.retry")}
           </button>
@@ -453,6 +504,12 @@ export function StampsTable({
                   ))}
                 </tr>
               ))
+            ) : error ? (
+              <tr>
+                <td colSpan={visibleColumns.length} className="px-4 py-12 text-center text-stone-600">
+                  {t("stamps.table.refusedRows")}
+                </td>
+              </tr>
             ) : rows.length === 0 ? (
               <tr>
                 <td colSpan={visibleColumns.length} className="px-4 py-12 text-center">
@@ -523,8 +580,17 @@ export function StampsTable({
   );
 }
 
+/** The message under a from–to pair of filter boxes; both boxes point at it. */
+function RangeError({ id, messages }: { id: string; messages: string[] }) {
+  return (
+    <p id={id} className={cn("max-w-48 text-xs font-normal text-red-700", !messages.length && "sr-only")} aria-live="polite">
+      {messages.join(" ")}
+    </p>
+  );
+}
+
 /** A number box that applies its value when the person leaves it or presses Enter. */
-function RangeInput({ label, value, onCommit }: { label: string; value: string; onCommit: (value: string) => void }) {
+function RangeInput({ label, value, onCommit, errorId }: { label: string; value: string; onCommit: (value: string) => void; errorId?: string }) {
   const [draft, setDraft] = useState(value);
   const [last, setLast] = useState(value);
   if (value !== last) {
@@ -538,11 +604,13 @@ function RangeInput({ label, value, onCommit }: { label: string; value: string; 
       min={0}
       step="any"
       aria-label={label}
+      aria-invalid={errorId ? true : undefined}
+      aria-describedby={errorId}
       value={draft}
       onChange={(e) => setDraft(e.target.value)}
       onBlur={() => draft !== value && onCommit(draft)}
       onKeyDown={(e) => e.key === "Enter" && onCommit(draft)}
-      className="w-20 rounded-md border border-stone-300 px-2 py-1.5 text-sm font-normal"
+      className="w-20 rounded-md border border-stone-300 px-2 py-1.5 text-sm font-normal aria-invalid:border-red-500"
     />
   );
 }

@@ -1,6 +1,8 @@
 // Every /api/v1 route file, for the API reference (openapi.json and the reference page).
 // tests/integration/openapi.test.ts fails when a route file is missing here.
 import type { RouteModule } from "@/lib/api/openapi";
+import * as adminTokens from "./admin/tokens/route";
+import * as adminTokensId from "./admin/tokens/[id]/route";
 import * as checkouts from "./checkouts/route";
 import * as checkoutsReminders from "./checkouts/reminders/route";
 import * as layout from "./layout/route";
@@ -8,6 +10,7 @@ import * as locations from "./locations/route";
 import * as locationsId from "./locations/[id]/route";
 import * as me from "./me/route";
 import * as openapi from "./openapi.json/route";
+import * as settings from "./settings/route";
 import * as stamps from "./stamps/route";
 import * as stampsExport from "./stamps/export/route";
 import * as stampsImport from "./stamps/import/route";
@@ -39,6 +42,8 @@ import * as usersIdInvitation from "./users/[id]/invitation/route";
 import * as usersIdResetLink from "./users/[id]/reset-link/route";
 
 export const routeModules: RouteModule[] = [
+  { path: "/api/v1/admin/tokens", handlers: adminTokens },
+  { path: "/api/v1/admin/tokens/{id}", handlers: adminTokensId },
   { path: "/api/v1/checkouts", handlers: checkouts },
   { path: "/api/v1/checkouts/reminders", handlers: checkoutsReminders },
   { path: "/api/v1/layout", handlers: layout },
@@ -46,6 +51,7 @@ export const routeModules: RouteModule[] = [
   { path: "/api/v1/locations/{id}", handlers: locationsId },
   { path: "/api/v1/me", handlers: me },
   { path: "/api/v1/openapi.json", handlers: openapi },
+  { path: "/api/v1/settings", handlers: settings },
   { path: "/api/v1/stamps", handlers: stamps },
   { path: "/api/v1/stamps/export", handlers: stampsExport },
   { path: "/api/v1/stamps/import", handlers: stampsImport },

@@ -1,7 +1,7 @@
 import jsQR from "jsqr";
 import QRCode from "qrcode";
 import { describe, expect, it } from "vitest";
-import { codeFromScan, stampUrl } from "@/lib/stamps/codes";
+import { codeFromScan, locationFromScan, shelfUrl, stampUrl } from "@/lib/stamps/codes";
 
 describe("codeFromScan", () => {
   it("reads a code from a label's address, with or without a trailing slash or query", () => {
@@ -16,6 +16,24 @@ describe("codeFromScan", () => {
     expect(codeFromScan("")).toBeNull();
     expect(codeFromScan("two words")).toBeNull();
     expect(codeFromScan("https://elsewhere.example/a/b")).toBeNull();
+  });
+});
+
+describe("locationFromScan", () => {
+  const id = "3f2b8c1e-7a4d-4e2f-9b1a-0c5d6e7f8a9b";
+  it("reads the location from a shelf label's address", () => {
+    expect(shelfUrl("http://localhost:3000/", id)).toBe(`http://localhost:3000/stamps?location=${id}`);
+    expect(locationFromScan(shelfUrl("https://capgrid.example", id))).toBe(id);
+    expect(locationFromScan(` http://localhost:3000/stamps/?location=${id.toUpperCase()} `)).toBe(id);
+  });
+
+  it("is null for a stamp's label, a typed code or another address", () => {
+    expect(locationFromScan("http://localhost:3000/stamps/CP-0142")).toBeNull();
+    expect(locationFromScan("CP-0142")).toBeNull();
+    expect(locationFromScan(`http://localhost:3000/stamps?location=not-an-id`)).toBeNull();
+    expect(locationFromScan(`http://localhost:3000/elsewhere?location=${id}`)).toBeNull();
+    // A shelf label is never taken for a stamp code.
+    expect(codeFromScan(shelfUrl("http://localhost:3000", id))).toBeNull();
   });
 });
 

@@ -1,8 +1,9 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { Suspense } from "react";
 import { getFormatter, getTranslations } from "next-intl/server";
-import { StampScans } from "@/components/scans/stamp-scans";
+import { LoadingState } from "@/components/shell/loading-state";
 import { ConditionBadge, OutBadge } from "@/components/stamps/condition-badge";
 import { Footprint } from "@/components/stamps/footprint";
 import { StampHistory } from "@/components/stamps/history";
@@ -10,16 +11,17 @@ import { lengthText, massText, sizeText } from "@/components/stamps/measure";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { listLocations } from "@/lib/data/locations";
-import { listScans, scanLimits } from "@/lib/data/scans";
 import { getStamp, listBorrowers, stampHistory } from "@/lib/data/stamps";
 import type { StampDto } from "@/lib/contracts/stamps";
 import { AppError } from "@/lib/errors";
 import { can } from "@/lib/permissions";
 import { requirePageActor } from "@/lib/session";
 import { isoDateAfter } from "@/lib/stamps/codes";
+import { isLowCoverage } from "@/lib/stamps/coverage";
 import { nextConditions } from "@/lib/stamps/condition";
 import { stampCodeSchema } from "@/lib/validation/stamps";
 import { CheckoutForm, ConditionForm, DamageForm, DeleteStamp, ReturnForm } from "./stamp-panels";
+import { ScansSection } from "./scans-section";
 
 type Props = { params: Promise<{ code: string }>; searchParams: Promise<{ saved?: string }> };
 
@@ -44,15 +46,13 @@ export default async function StampPage({ params, searchParams }: Props) {
   const { saved } = await searchParams;
   const stamp = await load(code, () => getStamp(actor, stampCodeSchema.parse(code)));
   const canWrite = can(actor.role, "stamps:write");
-  const [t, format, history, locations, borrowers, scans] = await Promise.all([
+  const [t, format, history, locations, borrowers] = await Promise.all([
     getTranslations(),
     getFormatter(),
     stampHistory(actor, stamp.code),
     canWrite ? listLocations(actor) : [],
     canWrite ? listBorrowers(actor) : [],
-    listScans(actor, stamp.code),
   ]);
-  const { maxBytes, maxPixels } = scanLimits();
   const units = actor.unitSystem;
   const none = <span className="text-stone-500">{t("stamps.record.notRecorded")}</span>;
   const day = (iso: string) => format.dateTime(new Date(`${iso}T00:00:00Z`), { dateStyle: "medium", timeZone: "UTC" });
@@ -90,7 +90,18 @@ export default async function StampPage({ params, searchParams }: Props) {
         <span className="text-amber-800">{t("stamps.record.noLocation")}</span>
       ),
     ],
-    [t("stamps.fields.coverageRatio"), stamp.coverageRatio !== null ? format.number(stamp.coverageRatio, { style: "percent", maximumFractionDigits: 1 }) : none],
+    [
+      t("stamps.fields.coverageRatio"),
+      stamp.coverageRatio === null ? (
+        none
+      ) : isLowCoverage(stamp.coverageRatio) ? (
+        <span className="text-amber-800" data-testid="coverage-low">
+          {format.number(stamp.coverageRatio, { style: "percent", maximumFractionDigits: 2 })} · {t("stamps.record.coverageLow")}
+        </span>
+      ) : (
+        format.number(stamp.coverageRatio, { style: "percent", maximumFractionDigits: 1 })
+      ),
+    ],
     [t("stamps.fields.impressionsCount"), format.number(stamp.impressionsCount)],
     [
       t("stamps.fields.tags"),
@@ -136,6 +147,16 @@ export default async function StampPage({ params, searchParams }: Props) {
         }
       />
       {saved === "created" || saved === "updated" ? <Notice tone="success" className="mb-4">{t(`stamps.record.saved.${saved}`)}</Notice> : null}
+      {saved === "checkedOut" && checkout ? (
+        <Notice tone="success" className="mb-4">
+          {t("stamps.record.saved.checkedOut", { name: checkout.borrowerName, workstation: checkout.workstation, due: day(checkout.dueOn) })}
+        </Notice>
+      ) : null}
+      {saved === "returned" && !checkout ? (
+        <Notice tone="success" className="mb-4">
+          {stamp.location ? t("stamps.record.saved.returnedTo", { place: `${stamp.location.site} · ${stamp.location.code}` }) : t("stamps.record.saved.returned")}
+        </Notice>
+      ) : null}
 
       <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
         <div className="space-y-6">
@@ -163,13 +184,10 @@ export default async function StampPage({ params, searchParams }: Props) {
             {stamp.notes ? <p className="mt-4 whitespace-pre-line border-t border-stone-100 pt-3 text-sm text-stone-700">{stamp.notes}</p> : null}
           </Panel>
 
-          <StampScans
-            code={stamp.code}
-            coverageRatio={stamp.coverageRatio}
-            canWrite={canWrite}
-            unitSystem={units}
-            initial={{ scans, limits: { maxBytes, maxPixels } }}
-          />
+          {/* Below the lookup: an unknown code has answered 404 before anything streams. */}
+          <Suspense fallback={<LoadingState />}>
+            <ScansSection actor={actor} code={stamp.code} coverageRatio={stamp.coverageRatio} hasOutline={stamp.outlinePath !== null} />
+          </Suspense>
 
           <Panel title={t("stamps.history.title")}>
             <StampHistory events={history} unitSystem={units} />

@@ -76,7 +76,7 @@ export function ReturnForm({ code, locations, currentLocationId }: { code: strin
       <div className="grid gap-3 sm:grid-cols-2">
         <Field id="return-location" label={t("stamps.return.location")} errors={state.fieldErrors?.locationId}>
           {(aria) => (
-            <select {...aria} name="locationId" defaultValue={val(state, "locationId", currentLocationId ?? "")}>
+            <select {...aria} key={val(state, "locationId", currentLocationId ?? "")} name="locationId" defaultValue={val(state, "locationId", currentLocationId ?? "")}>
               <option value="">{t("stamps.return.sameLocation")}</option>
               {locations.map((l) => (
                 <option key={l.id} value={l.id}>
@@ -132,7 +132,7 @@ export function DamageForm({ code }: { code: string }) {
       <input type="hidden" name="code" value={code} />
       <Field id="damage-kind" label={t("stamps.damage.kind")} errors={state.fieldErrors?.kind}>
         {(aria) => (
-          <select {...aria} name="kind" defaultValue={val(state, "kind")}>
+          <select {...aria} key={val(state, "kind")} name="kind" defaultValue={val(state, "kind")}>
             <option value="">{t("stamps.damage.choose")}</option>
             {damageKinds.map((k) => (
               <option key={k} value={k}>

@@ -4,6 +4,7 @@ import Link from "next/link";
 import { useTranslations } from "next-intl";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { stampUrls } from "@/lib/contracts/stamps";
 
@@ -15,7 +16,8 @@ interface Problem {
 type Outcome =
   | { kind: "ok"; dryRun: boolean; rows: number; created: number; updated: number }
   | { kind: "invalid"; message: string; rows: Problem[] }
-  | { kind: "error"; message: string };
+  | { kind: "error"; message: string }
+  | { kind: "noFile"; message: string };
 
 /** Sends the chosen file as text/csv; a check first (nothing stored), then the import itself. */
 export function ImportForm() {
@@ -26,7 +28,7 @@ export function ImportForm() {
 
   async function send(dryRun: boolean) {
     if (!file) {
-      setOutcome({ kind: "error", message: t("stampImport.chooseFirst") });
+      setOutcome({ kind: "noFile", message: t("stampImport.chooseFirst") });
       return;
     }
     setBusy(true);
@@ -46,18 +48,20 @@ export function ImportForm() {
 
   return (
     <div className="space-y-4">
-      <label className="block space-y-1 text-sm font-medium text-stone-800">
-        {t("stampImport.file")}
-        <input
-          type="file"
-          accept=".csv,text/csv"
-          onChange={(e) => {
-            setFile(e.target.files?.[0] ?? null);
-            setOutcome(null);
-          }}
-          className="block w-full text-sm font-normal file:mr-3 file:rounded-md file:border file:border-stone-300 file:bg-white file:px-3 file:py-1.5"
-        />
-      </label>
+      <Field id="import-file" label={t("stampImport.file")} errors={outcome?.kind === "noFile" ? [outcome.message] : undefined}>
+        {(aria) => (
+          <input
+            {...aria}
+            type="file"
+            accept=".csv,text/csv"
+            onChange={(e) => {
+              setFile(e.target.files?.[0] ?? null);
+              setOutcome(null);
+            }}
+            className="block w-full text-sm font-normal file:mr-3 file:rounded-md file:border file:border-stone-300 file:bg-white file:px-3 file:py-1.5"
+          />
+        )}
+      </Field>
       <div className="flex flex-wrap gap-2">
         <Button type="button" variant="secondary" disabled={busy} onClick={() => send(true)}>
           {t("stampImport.check")}

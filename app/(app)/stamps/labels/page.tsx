@@ -3,13 +3,15 @@ import Link from "next/link";
 import { getFormatter, getTranslations } from "next-intl/server";
 import QRCode from "qrcode";
 import { sizeText } from "@/components/stamps/measure";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/panel";
 import { listLocations } from "@/lib/data/locations";
 import { listAllStamps } from "@/lib/data/stamps";
 import { env } from "@/lib/env";
 import { requirePageActor } from "@/lib/session";
-import { stampUrl } from "@/lib/stamps/codes";
+import { shelfUrl, stampUrl } from "@/lib/stamps/codes";
 import { queryObject } from "@/lib/validation/common";
 import { stampCodeSchema, stampListQuerySchema } from "@/lib/validation/stamps";
 import { parseInput } from "@/lib/validation/parse";
@@ -35,7 +37,7 @@ export default async function LabelsPage({ searchParams }: Props) {
   if (params.get("kind") === "shelf") {
     const site = params.get("site");
     const locations = (await listLocations(actor)).filter((l) => !site || l.site === site);
-    const labels = await Promise.all(locations.map(async (l) => ({ ...l, svg: await qr(`${appUrl.replace(/\/$/, "")}/stamps?location=${l.id}`) })));
+    const labels = await Promise.all(locations.map(async (l) => ({ ...l, svg: await qr(shelfUrl(appUrl, l.id)) })));
     return (
       <div className="print-shelf-labels" data-testid="label-sheet">
         <LabelsHeader title={t("labels.shelfTitle")} intro={t("labels.shelfIntro", { count: labels.length })} />
@@ -56,17 +58,38 @@ export default async function LabelsPage({ searchParams }: Props) {
     );
   }
 
-  const codes = (params.get("codes") ?? "").split(",").map((c) => stampCodeSchema.safeParse(c)).filter((r) => r.success).map((r) => r.data);
+  // ?codes= (the form below, or a stamp's "Print label") names the stamps; without it the table's filters do.
+  const codesText = params.get("codes");
+  const asked = (codesText ?? "").split(/[\s,;]+/).filter(Boolean);
+  const checked = asked.map((c) => ({ typed: c, parsed: stampCodeSchema.safeParse(c) }));
+  const codes = checked.flatMap((c) => (c.parsed.success ? [c.parsed.data] : []));
+  const badCodes = checked.filter((c) => !c.parsed.success).map((c) => c.typed);
   const parsed = parseInput(stampListQuerySchema, queryObject(params));
   const query = parsed.success ? parsed.data : {};
-  let stamps = await listAllStamps(actor, codes.length ? { codes } : query, MAX_LABELS + 1);
+  let stamps = await listAllStamps(actor, codesText !== null ? { codes } : query, MAX_LABELS + 1);
   const tooMany = stamps.length > MAX_LABELS;
   stamps = stamps.slice(0, MAX_LABELS);
+  const unknownCodes = codes.filter((c) => !stamps.some((s) => s.code === c));
+  const codeErrors = [
+    ...(codesText !== null && asked.length === 0 ? [t("labels.codesEmpty")] : []),
+    ...(badCodes.length ? [t("labels.codesInvalid", { codes: badCodes.join(", ") })] : []),
+    ...(unknownCodes.length && !tooMany ? [t("labels.codesUnknown", { codes: unknownCodes.join(", ") })] : []),
+  ];
   const labels = await Promise.all(stamps.map(async (s) => ({ ...s, svg: await qr(stampUrl(appUrl, s.code)) })));
   // A4 with 8 mm margins when printed: the named page stamp-labels in app/globals.css.
   return (
     <div className="print-stamp-labels" data-testid="label-sheet">
       <LabelsHeader title={t("labels.title")} intro={t("labels.intro", { count: labels.length })} />
+      <form method="get" className="mb-4 flex flex-wrap items-start gap-3 print:hidden" aria-label={t("labels.codesForm")} noValidate>
+        <div className="min-w-72 flex-1">
+          <Field id="label-codes" label={t("labels.codes")} hint={t("labels.codesHint")} errors={codeErrors.length ? codeErrors : undefined}>
+            {(aria) => <input {...aria} name="codes" autoComplete="off" defaultValue={codesText ?? ""} className={`${aria.className} font-mono uppercase`} />}
+          </Field>
+        </div>
+        <Button type="submit" variant="secondary" className="mt-6">
+          {t("labels.codesSubmit")}
+        </Button>
+      </form>
       {tooMany ? <Notice tone="warning" className="mb-4 print:hidden">{t("labels.tooMany", { max: MAX_LABELS })}</Notice> : null}
       {labels.length === 0 ? <Notice>{t("labels.none")}</Notice> : null}
       <div className="grid grid-cols-3 gap-[3mm] print:gap-[2mm]" data-testid="labels">

@@ -50,6 +50,8 @@ export function LocationForm({ sites }: { sites: string[] }) {
 export function LocationRow({ location, canWrite }: { location: LocationDto; canWrite: boolean }) {
   const t = useTranslations();
   const [state, action, pending] = useActionState(locationRowAction, initialFormState);
+  const descriptionErrors = state.fieldErrors?.description;
+  const descriptionErrorId = `location-${location.id}-description-error`;
   return (
     <li className="flex flex-wrap items-center justify-between gap-3 py-2.5" data-testid={`location-${location.code}`}>
       <div className="min-w-48">
@@ -61,19 +63,24 @@ export function LocationRow({ location, canWrite }: { location: LocationDto; can
       </div>
       {canWrite ? (
         <div className="flex flex-1 flex-wrap items-center justify-end gap-2">
-          <form action={action} className="flex flex-1 items-center gap-2">
+          <form action={action} className="flex flex-1 flex-wrap items-center gap-2">
             <input type="hidden" name="id" value={location.id} />
             <input type="hidden" name="intent" value="describe" />
             <input
               name="description"
               aria-label={t("locations.descriptionOf", { code: location.code })}
-              defaultValue={location.description ?? ""}
+              aria-invalid={descriptionErrors ? true : undefined}
+              aria-describedby={descriptionErrors ? descriptionErrorId : undefined}
+              defaultValue={state.status === "error" ? state.values?.description : (location.description ?? "")}
               placeholder={t("locations.descriptionPlaceholder")}
-              className="min-w-40 flex-1 rounded-md border border-stone-300 px-2 py-1 text-sm"
+              className="min-w-40 flex-1 rounded-md border border-stone-300 px-2 py-1 text-sm aria-invalid:border-red-500"
             />
             <Button type="submit" variant="secondary" className="px-2.5 py-1 text-xs" disabled={pending}>
               {t("locations.save")}
             </Button>
+            <p id={descriptionErrorId} className={descriptionErrors ? "w-full text-sm text-red-700" : "sr-only"} aria-live="polite">
+              {descriptionErrors?.join(" ")}
+            </p>
           </form>
           <form
             action={action}
@@ -89,7 +96,7 @@ export function LocationRow({ location, canWrite }: { location: LocationDto; can
           </form>
         </div>
       ) : null}
-      {state.message ? (
+      {state.message && !descriptionErrors ? (
         <Notice tone={state.status === "success" ? "success" : "error"} className="w-full">
           {state.message}
         </Notice>

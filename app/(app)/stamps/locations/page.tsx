@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { getTranslations } from "next-intl/server";
+import { Notice } from "@/components/ui/notice";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { listLocations } from "@/lib/data/locations";
 import { can } from "@/lib/permissions";
@@ -11,8 +12,9 @@ export async function generateMetadata(): Promise<Metadata> {
   return { title: (await getTranslations("locations"))("title") };
 }
 
-export default async function LocationsPage() {
+export default async function LocationsPage({ searchParams }: { searchParams: Promise<{ deleted?: string }> }) {
   const actor = await requirePageActor();
+  const deleted = (await searchParams).deleted?.slice(0, 130);
   const [t, locations] = await Promise.all([getTranslations(), listLocations(actor)]);
   const canWrite = can(actor.role, "stamps:write");
   const sites = [...new Set(locations.map((l) => l.site))];
@@ -30,6 +32,7 @@ export default async function LocationsPage() {
         }
       />
       <div className="space-y-6">
+        {deleted ? <Notice tone="success">{t("locations.deletedOne", { location: deleted })}</Notice> : null}
         {canWrite ? (
           <Panel title={t("locations.addTitle")} intro={t("locations.addIntro")}>
             <LocationForm sites={sites} />

@@ -16,14 +16,14 @@ export default async function StockTakesPage() {
   const actor = await requirePageActor();
   const [t, format, takes, locations] = await Promise.all([getTranslations(), getFormatter(), listStockTakes(actor), listLocations(actor)]);
   const sites = [...new Set(locations.map((l) => l.site))];
-  const openSites = new Set(takes.filter((s) => s.status === "open").map((s) => s.site));
+  const openAt = new Map(takes.filter((s) => s.status === "open").map((s) => [s.site, s.id]));
   return (
     <>
       <PageHeader title={t("stockTake.title")} intro={t("stockTake.intro")} />
       <div className="space-y-6">
         {can(actor.role, "stamps:write") ? (
           <Panel title={t("stockTake.startTitle")} intro={t("stockTake.startIntro")}>
-            {sites.length ? <StartStockTake sites={sites.map((s) => ({ site: s, open: openSites.has(s) }))} /> : <p className="text-sm text-stone-600">{t("stockTake.noSites")}</p>}
+            {sites.length ? <StartStockTake sites={sites.map((s) => ({ site: s, openId: openAt.get(s) ?? null }))} /> : <p className="text-sm text-stone-600">{t("stockTake.noSites")}</p>}
           </Panel>
         ) : null}
         <Panel title={t("stockTake.listTitle")}>

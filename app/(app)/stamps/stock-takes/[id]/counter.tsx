@@ -6,9 +6,11 @@ import { useRef, useState } from "react";
 import { QrScanner } from "@/components/stamps/qr-scanner";
 import { Button } from "@/components/ui/button";
 import { cn } from "@/components/ui/cn";
+import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { stampUrls, type StockTakeDto } from "@/lib/contracts/stamps";
+import { locationFromScan } from "@/lib/stamps/codes";
 import { ApiError, apiFetch } from "@/lib/swr/fetcher";
 import { useStockTake } from "@/lib/swr/use-stock-take";
 
@@ -20,19 +22,41 @@ export function StockTakeCounter({ initial, canWrite }: { initial: StockTakeDto;
   const { data, mutate } = useStockTake(initial.id, initial);
   const take = data?.stockTake ?? initial;
   const open = take.status === "open";
-  const [locationId, setLocationId] = useState(take.locations[0]?.id ?? "");
+  // No location until the keeper picks one or scans a shelf label: a guess would report false "wrong place" results.
+  const [locationId, setLocationId] = useState("");
   const [code, setCode] = useState("");
   const [feedback, setFeedback] = useState<Feedback>(null);
+  const [fieldErrors, setFieldErrors] = useState<{ locationId?: string[]; code?: string[] }>({});
   const [busy, setBusy] = useState(false);
   const input = useRef<HTMLInputElement>(null);
   const percent = take.expected ? Math.round((take.seenExpected / take.expected) * 100) : 0;
 
+  /** A scanned shelf label switches where the count is; answers whether the text was one. */
+  function switchShelf(text: string): boolean {
+    const scanned = locationFromScan(text);
+    if (!scanned) return false;
+    const shelf = take.locations.find((l) => l.id === scanned);
+    setCode((current) => (current === text ? "" : current));
+    if (shelf) {
+      setLocationId(shelf.id);
+      setFieldErrors({});
+      setFeedback({ tone: "success", text: t("stockTake.nowCountingAt", { code: shelf.code }) });
+    } else {
+      setFeedback({ tone: "error", text: t("stockTake.shelfElsewhere", { site: take.site }) });
+    }
+    input.current?.focus();
+    return true;
+  }
+
   async function see(text: string) {
     if (!text.trim()) return;
+    if (switchShelf(text)) return;
     if (!locationId) {
-      setFeedback({ tone: "error", text: t("stockTake.chooseLocation") });
+      setFeedback(null);
+      setFieldErrors({ locationId: [t("stockTake.chooseLocation")] });
       return;
     }
+    setFieldErrors({});
     setBusy(true);
     try {
       const { sighting } = await apiFetch<{ sighting: { code: string; known: boolean; name: string | null; location: string } }>(stampUrls.sightings(take.id), {
@@ -49,7 +73,12 @@ export function StockTakeCounter({ initial, canWrite }: { initial: StockTakeDto;
       await mutate();
     } catch (e) {
       const error = e instanceof ApiError ? e : null;
-      setFeedback({ tone: "error", text: error?.fields ? Object.values(error.fields).flat().join(" ") : (error?.message ?? t("common.error")) });
+      if (error?.fields) {
+        setFeedback(null);
+        setFieldErrors({ locationId: error.fields.locationId, code: error.fields.code ?? (error.fields.locationId ? undefined : Object.values(error.fields).flat()) });
+      } else {
+        setFeedback({ tone: "error", text: error?.message ?? t("common.error") });
+      }
     } finally {
       setBusy(false);
       input.current?.focus();
@@ -125,34 +154,43 @@ export function StockTakeCounter({ initial, canWrite }: { initial: StockTakeDto;
                   void see(code);
                 }}
               >
-                <label className="block space-y-1 text-sm font-medium text-stone-800">
-                  {t("stockTake.countingAt")}
-                  <select value={locationId} onChange={(e) => setLocationId(e.target.value)} className="block w-full rounded-md border border-stone-300 bg-white px-3 py-2 text-sm font-normal">
-                    {take.locations.map((l) => (
-                      <option key={l.id} value={l.id}>
-                        {l.code}
-                      </option>
-                    ))}
-                  </select>
-                </label>
-                <label className="block space-y-1 text-sm font-medium text-stone-800">
-                  {t("stockTake.code")}
-                  <span className="flex gap-2">
-                    <input
-                      ref={input}
-                      value={code}
-                      onChange={(e) => setCode(e.target.value)}
-                      autoFocus
-                      autoComplete="off"
-                      placeholder={t("stockTake.codePlaceholder")}
-                      className="block w-full rounded-md border border-stone-300 px-3 py-2 font-mono text-sm font-normal uppercase placeholder:normal-case"
-                    />
-                    {/* Never disabled: a scanner gun types the next code while the last one is being saved. */}
-                    <Button type="submit">
-                      {t("stockTake.mark")}
-                    </Button>
-                  </span>
-                </label>
+                <Field id="count-location" label={t("stockTake.countingAt")} hint={t("stockTake.countingAtHint")} errors={fieldErrors.locationId}>
+                  {(aria) => (
+                    <select
+                      {...aria}
+                      value={locationId}
+                      onChange={(e) => {
+                        setLocationId(e.target.value);
+                        setFieldErrors({});
+                      }}
+                    >
+                      <option value="">{t("stockTake.chooseLocationOption")}</option>
+                      {take.locations.map((l) => (
+                        <option key={l.id} value={l.id}>
+                          {l.code}
+                        </option>
+                      ))}
+                    </select>
+                  )}
+                </Field>
+                <Field id="count-code" label={t("stockTake.code")} errors={fieldErrors.code}>
+                  {(aria) => (
+                    <span className="flex gap-2">
+                      <input
+                        {...aria}
+                        ref={input}
+                        value={code}
+                        onChange={(e) => setCode(e.target.value)}
+                        autoFocus
+                        autoComplete="off"
+                        placeholder={t("stockTake.codePlaceholder")}
+                        className={cn(aria.className, "font-mono uppercase placeholder:normal-case")}
+                      />
+                      {/* Never disabled: a scanner gun types the next code while the last one is being saved. */}
+                      <Button type="submit">{t("stockTake.mark")}</Button>
+                    </span>
+                  )}
+                </Field>
                 {feedback ? (
                   <Notice tone={feedback.tone} className="text-sm">
                     {feedback.text}

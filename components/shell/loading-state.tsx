@@ -1,6 +1,7 @@
 import { getTranslations } from "next-intl/server";
 
-export default async function Loading() {
+/** What a page shows while it loads (loading.tsx files, Suspense fallbacks). */
+export async function LoadingState() {
   const t = await getTranslations("common");
   return (
     <div className="flex items-center gap-3 py-16 text-sm text-stone-500" role="status">

@@ -1,0 +1,51 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useFormatter, useNow, useTranslations } from "next-intl";
+import { useActionState, useEffect, useState } from "react";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { Notice } from "@/components/ui/notice";
+import { initialFormState } from "@/lib/actions/form-state";
+import { isTimeZone } from "@/lib/time-zone";
+import type { WorkshopSettings } from "@/lib/validation/settings";
+import { updateSettingsAction } from "./actions";
+
+/** The workshop settings; each setting one field. The version guards against saving over someone else's change. */
+export function SettingsForm({ settings, version, timeZones }: { settings: WorkshopSettings; version: number; timeZones: string[] }) {
+  const t = useTranslations("settings");
+  const format = useFormatter();
+  const now = useNow({ updateInterval: 30_000 });
+  const router = useRouter();
+  const [state, action, pending] = useActionState(updateSettingsAction, initialFormState);
+  const failed = state.status === "error";
+  const [timeZone, setTimeZone] = useState(failed ? (state.values?.timeZone ?? settings.timeZone) : settings.timeZone);
+  // Pages rendered for this save still carry the old zone; the next render has the new one.
+  useEffect(() => {
+    if (state.status === "success") router.refresh();
+  }, [state, router]);
+  return (
+    <form action={action} className="space-y-4" aria-label={t("formLabel")} noValidate>
+      {state.message ? <Notice tone={state.status === "success" ? "success" : "error"}>{state.message}</Notice> : null}
+      <input type="hidden" name="version" value={version} />
+      <Field id="settings-time-zone" label={t("fields.timeZone.label")} hint={t("fields.timeZone.hint")} errors={state.fieldErrors?.timeZone}>
+        {(aria) => (
+          <>
+            <input {...aria} name="timeZone" list="settings-time-zones" autoComplete="off" value={timeZone} onChange={(e) => setTimeZone(e.target.value)} />
+            <datalist id="settings-time-zones">
+              {timeZones.map((zone) => (
+                <option key={zone} value={zone} />
+              ))}
+            </datalist>
+          </>
+        )}
+      </Field>
+      <p className="text-sm text-stone-600" data-testid="time-zone-preview" suppressHydrationWarning>
+        {isTimeZone(timeZone.trim()) ? t("fields.timeZone.preview", { now: format.dateTime(now, { dateStyle: "full", timeStyle: "short", timeZone: timeZone.trim() }) }) : t("fields.timeZone.unknown")}
+      </p>
+      <Button type="submit" disabled={pending}>
+        {pending ? t("saving") : t("save")}
+      </Button>
+    </form>
+  );
+}
