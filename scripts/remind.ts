@@ -6,7 +6,7 @@ import { allowServerModules } from "./lib/server-modules";
 loadConfig();
 allowServerModules();
 const { database } = await import("@/db");
-const { remindOverdueBorrowers } = await import("@/lib/data/stamp-mail");
+const { remindOverdueBorrowers } = await import("@/lib/data/stamps/mail");
 
 const { client } = database();
 try {

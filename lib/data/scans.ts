@@ -6,32 +6,10 @@ import { stampScans, stamps, type Stamp, type StampScan } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
-import {
-  checkFileName,
-  compareWithRecord,
-  decodeGreyRaster,
-  defaultScanLimits,
-  downloadFileName,
-  encodeGreyRaster,
-  LOOK_ALIKE_MAX_BITS,
-  measureCoverage,
-  MIRROR_TWIN_MARGIN_BITS,
-  MM_PER_INCH,
-  nearest,
-  physicalSizeMm,
-  processScan,
-  renderCoverageOverlay,
-  ScanRejected,
-  scanLimiter,
-  type GreyRaster,
-  type PixelRect,
-  type ScanLimits,
-  type ScanType,
-  type WaxPolarity,
-} from "@/lib/scans";
+import { checkFileName, compareWithRecord, decodeGreyRaster, defaultScanLimits, downloadFileName, encodeGreyRaster, LOOK_ALIKE_MAX_BITS, measureCoverage, MIRROR_TWIN_MARGIN_BITS, MM_PER_INCH, nearest, physicalSizeMm, processScan, renderCoverageOverlay, ScanRejected, scanLimiter, type GreyRaster, type PixelRect, type ScanLimits, type ScanType, type WaxPolarity } from "@/lib/scans";
 import { deleteObjects, getObjectBytes, headObject, newObjectKey, objectStore, ObjectTooLarge, presignPut, putObject } from "@/lib/s3";
 import { polarityForKind, type CompleteScanInput, type PresignScanInput, type SaveCoverageInput } from "@/lib/validation/scans";
-import { isUniqueViolation, recordEvent } from "./stamp-events";
+import { isUniqueViolation, recordEvent } from "./stamps/events";
 import { scanKeys, scanRow } from "./scan-rows";
 import { scanUrls, type CoveragePreviewDto, type ScanDto, type ScanUpload, type SimilarStampDto } from "@/lib/contracts/scans";
 

@@ -4,7 +4,7 @@ import { getTranslations } from "next-intl/server";
 import { Forbidden } from "@/components/shell/forbidden";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/panel";
-import { listLocations } from "@/lib/data/locations";
+import { listLocations } from "@/lib/data/stamps/locations";
 import { stampCounts, stampFacets } from "@/lib/data/stamps";
 import { can } from "@/lib/permissions";
 import { requirePageActor } from "@/lib/session";

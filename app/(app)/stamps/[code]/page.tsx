@@ -10,7 +10,7 @@ import { StampHistory } from "@/components/stamps/history";
 import { lengthText, massText, sizeText } from "@/components/stamps/measure";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader, Panel } from "@/components/ui/panel";
-import { listLocations } from "@/lib/data/locations";
+import { listLocations } from "@/lib/data/stamps/locations";
 import { getStamp, listBorrowers, stampHistory } from "@/lib/data/stamps";
 import type { StampDto } from "@/lib/contracts/stamps";
 import { AppError } from "@/lib/errors";

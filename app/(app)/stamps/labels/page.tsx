@@ -7,7 +7,7 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/panel";
-import { listLocations } from "@/lib/data/locations";
+import { listLocations } from "@/lib/data/stamps/locations";
 import { listAllStamps } from "@/lib/data/stamps";
 import { env } from "@/lib/env";
 import { requirePageActor } from "@/lib/session";

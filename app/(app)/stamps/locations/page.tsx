@@ -3,7 +3,7 @@ import Link from "next/link";
 import { getTranslations } from "next-intl/server";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader, Panel } from "@/components/ui/panel";
-import { listLocations } from "@/lib/data/locations";
+import { listLocations } from "@/lib/data/stamps/locations";
 import { can } from "@/lib/permissions";
 import { requirePageActor } from "@/lib/session";
 import { LocationForm, LocationRow } from "./location-forms";

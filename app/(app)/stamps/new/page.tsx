@@ -3,7 +3,7 @@ import { getTranslations } from "next-intl/server";
 import { Forbidden } from "@/components/shell/forbidden";
 import { StampForm } from "@/components/stamps/stamp-form";
 import { PageHeader, Panel } from "@/components/ui/panel";
-import { listLocations } from "@/lib/data/locations";
+import { listLocations } from "@/lib/data/stamps/locations";
 import { can } from "@/lib/permissions";
 import { requirePageActor } from "@/lib/session";
 import { createStampAction } from "../actions";

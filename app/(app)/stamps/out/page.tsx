@@ -3,7 +3,7 @@ import Link from "next/link";
 import { getFormatter, getTranslations } from "next-intl/server";
 import { OutBadge } from "@/components/stamps/condition-badge";
 import { PageHeader, Panel } from "@/components/ui/panel";
-import { REMINDER_GAP_HOURS } from "@/lib/data/stamp-mail";
+import { REMINDER_GAP_HOURS } from "@/lib/data/stamps/mail";
 import type { OpenCheckoutDto } from "@/lib/contracts/stamps";
 import { listCheckouts } from "@/lib/data/stamps";
 import { can } from "@/lib/permissions";

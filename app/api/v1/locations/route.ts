@@ -1,6 +1,6 @@
 // GET /api/v1/locations — every site's locations with their stamp counts; POST — add a location (keepers)
 import { apiRoute, created, methods } from "@/lib/api/route";
-import { createLocation, listLocations } from "@/lib/data/locations";
+import { createLocation, listLocations } from "@/lib/data/stamps/locations";
 import { locationSchema } from "@/lib/validation/stamps";
 
 export const { GET, POST, PUT, PATCH, DELETE } = methods({

@@ -1,6 +1,6 @@
 // GET /api/v1/stock-takes — the counts so far; POST — start counting the stamps of a site (keepers)
 import { apiRoute, created, methods } from "@/lib/api/route";
-import { listStockTakes, startStockTake } from "@/lib/data/stock-takes";
+import { listStockTakes, startStockTake } from "@/lib/data/stamps/stock-takes";
 import { startStockTakeSchema } from "@/lib/validation/stamps";
 
 export const { GET, POST, PUT, PATCH, DELETE } = methods({

@@ -4,7 +4,7 @@ import { getTranslations } from "next-intl/server";
 import { Forbidden } from "@/components/shell/forbidden";
 import { StampForm } from "@/components/stamps/stamp-form";
 import { PageHeader, Panel } from "@/components/ui/panel";
-import { listLocations } from "@/lib/data/locations";
+import { listLocations } from "@/lib/data/stamps/locations";
 import { getStamp } from "@/lib/data/stamps";
 import { AppError } from "@/lib/errors";
 import { can } from "@/lib/permissions";

@@ -1,6 +1,6 @@
 // GET/PATCH/DELETE /api/v1/locations/{id} — one location; only an empty one can be deleted
 import { apiRoute, methods, noContent } from "@/lib/api/route";
-import { deleteLocation, getLocation, updateLocation } from "@/lib/data/locations";
+import { deleteLocation, getLocation, updateLocation } from "@/lib/data/stamps/locations";
 import { locationIdParamSchema, updateLocationSchema } from "@/lib/validation/stamps";
 
 export const { GET, POST, PUT, PATCH, DELETE } = methods({

@@ -1,7 +1,7 @@
 // GET /api/v1/stamps/export — the stamps matching the list filters as a CSV file (same query as GET /api/v1/stamps)
 import { apiRoute, methods } from "@/lib/api/route";
 import { todayIso } from "@/lib/dates";
-import { exportStampsCsv } from "@/lib/data/stamp-csv";
+import { exportStampsCsv } from "@/lib/data/stamps/csv";
 import { stampListQuerySchema } from "@/lib/validation/stamps";
 
 export const { GET, POST, PUT, PATCH, DELETE } = methods({

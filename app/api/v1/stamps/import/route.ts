@@ -1,7 +1,7 @@
 // POST /api/v1/stamps/import — add or update stamps from a CSV body (?dryRun=true only checks it); all rows or none (keepers)
 import { mediaTypeOf, readBodyText } from "@/lib/api/body";
 import { apiRoute, methods } from "@/lib/api/route";
-import { importLimits, importStampsCsv } from "@/lib/data/stamp-csv";
+import { importLimits, importStampsCsv } from "@/lib/data/stamps/csv";
 import { AppError } from "@/lib/errors";
 import { importQuerySchema } from "@/lib/validation/stamps";
 

@@ -1,6 +1,6 @@
 // POST /api/v1/stock-takes/{id}/end — close a count; its report stays readable (keepers)
 import { apiRoute, methods } from "@/lib/api/route";
-import { endStockTake } from "@/lib/data/stock-takes";
+import { endStockTake } from "@/lib/data/stamps/stock-takes";
 import { stockTakeIdParamSchema } from "@/lib/validation/stamps";
 
 export const { GET, POST, PUT, PATCH, DELETE } = methods({

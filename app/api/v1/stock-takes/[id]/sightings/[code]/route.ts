@@ -1,6 +1,6 @@
 // DELETE /api/v1/stock-takes/{id}/sightings/{code} — undo a mistaken sighting while the count is open (keepers)
 import { apiRoute, methods, noContent } from "@/lib/api/route";
-import { removeSighting } from "@/lib/data/stock-takes";
+import { removeSighting } from "@/lib/data/stamps/stock-takes";
 import { sightingParamSchema } from "@/lib/validation/stamps";
 
 export const { GET, POST, PUT, PATCH, DELETE } = methods({

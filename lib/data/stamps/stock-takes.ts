@@ -6,8 +6,8 @@ import { assertCan, type Actor } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
 import { codeFromScan } from "@/lib/stamps/codes";
 import { relocations, stockTakeReport, type ExpectedStamp } from "@/lib/stamps/stock-take";
-import { isUniqueViolation, locationLabel } from "./stamp-events";
-import { updateStamp } from "./stamps";
+import { isUniqueViolation, locationLabel } from "./events";
+import { updateStamp } from "./edit";
 import type { StockTakeDto, StockTakePlace, StockTakeSummary } from "@/lib/contracts/stamps";
 
 export async function listStockTakes(actor: Actor): Promise<StockTakeSummary[]> {

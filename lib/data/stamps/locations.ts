@@ -5,7 +5,7 @@ import { locations, stamps, type Location } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
 import type { LocationInput } from "@/lib/validation/stamps";
-import { isForeignKeyViolation, isUniqueViolation } from "./stamp-events";
+import { isForeignKeyViolation, isUniqueViolation } from "./events";
 import type { LocationDto } from "@/lib/contracts/stamps";
 
 const toDto = (l: Location, stampCount = 0): LocationDto => ({ id: l.id, site: l.site, code: l.code, description: l.description, stampCount });

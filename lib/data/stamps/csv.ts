@@ -7,7 +7,9 @@ import { columnOfField, parseStampCsv, stampsToCsv, type CsvRowProblem } from "@
 import { AppError, issueMessage, type MessageRef } from "@/lib/errors";
 import { controlCharacterIssues, parseInput } from "@/lib/validation/parse";
 import { createStampSchema, type CreateStampInput, type StampListQuery, type UpdateStampInput } from "@/lib/validation/stamps";
-import { createStamp, listAllStamps, listCheckouts, updateStamp } from "./stamps";
+import { listCheckouts } from "./checkouts";
+import { createStamp, updateStamp } from "./edit";
+import { listAllStamps } from "./list";
 import type { ImportResult } from "@/lib/contracts/stamps";
 
 export const importLimits = { maxRows: 20_000, maxBytes: 5 * 1024 * 1024 } as const;

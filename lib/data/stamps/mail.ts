@@ -10,7 +10,7 @@ import { dateFormat, translator } from "@/lib/i18n/translator";
 import { sendMail } from "@/lib/mail";
 import { stampUrl } from "@/lib/stamps/codes";
 import type { ReminderResult } from "@/lib/contracts/stamps";
-import { workshopTimeZone, workshopToday } from "./settings";
+import { workshopTimeZone, workshopToday } from "../settings";
 
 /**
  * E-mails every active keeper (or, with no keeper, every administrator) about a damage report.
