@@ -92,6 +92,8 @@ export interface ObjectStore {
   putObject(key: string, body: Uint8Array, options?: { contentType?: string; cacheControl?: string }): Promise<void>;
   /** The object's bytes, or null when there is none; refuses (ObjectTooLarge) past `maxBytes` without reading on. */
   getObjectBytes(key: string, options?: { maxBytes?: number }): Promise<Buffer | null>;
+  /** The object as a stream for an HTTP answer, or null when there is none. */
+  getObjectStream(key: string): Promise<{ body: ReadableStream<Uint8Array>; sizeBytes: number | null } | null>;
   headObject(key: string): Promise<ObjectHead | null>;
   deleteObject(key: string): Promise<void>;
   /** Deletes up to any number of keys, 1000 per request; missing keys are not an error. */
@@ -114,6 +116,17 @@ export function createObjectStore(config: S3Config, client: S3Client = createS3C
       await client.send(
         new PutObjectCommand({ Bucket, Key: key, Body: body, ContentLength: body.length, ContentType: options.contentType, CacheControl: options.cacheControl }),
       );
+    },
+
+    async getObjectStream(key) {
+      try {
+        const response = await client.send(new GetObjectCommand({ Bucket, Key: key }));
+        const body = response.Body as { transformToWebStream(): ReadableStream<Uint8Array> } | undefined;
+        return body ? { body: body.transformToWebStream(), sizeBytes: response.ContentLength ?? null } : null;
+      } catch (error) {
+        if (isNotFound(error)) return null;
+        throw error;
+      }
     },
 
     async getObjectBytes(key, options = {}) {

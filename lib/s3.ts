@@ -38,6 +38,7 @@ export function objectStore(): ObjectStore {
 
 export const putObject: ObjectStore["putObject"] = (...args) => objectStore().putObject(...args);
 export const getObjectBytes: ObjectStore["getObjectBytes"] = (...args) => objectStore().getObjectBytes(...args);
+export const getObjectStream: ObjectStore["getObjectStream"] = (...args) => objectStore().getObjectStream(...args);
 export const headObject: ObjectStore["headObject"] = (...args) => objectStore().headObject(...args);
 export const deleteObject: ObjectStore["deleteObject"] = (...args) => objectStore().deleteObject(...args);
 export const deleteObjects: ObjectStore["deleteObjects"] = (...args) => objectStore().deleteObjects(...args);

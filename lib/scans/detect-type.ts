@@ -20,6 +20,11 @@ export const scanContentTypes: Record<ScanType, string> = {
 
 export const scanExtensions: Record<ScanType, string> = { png: "png", jpeg: "jpg", tiff: "tif", webp: "webp" };
 
+/** The scan type of a stored content type (as scanContentTypes wrote it); PNG for anything else. */
+export function scanTypeOfContent(contentType: string): ScanType {
+  return (Object.keys(scanContentTypes) as ScanType[]).find((type) => scanContentTypes[type] === contentType) ?? "png";
+}
+
 const startsWith = (bytes: Uint8Array, signature: ArrayLike<number>, offset = 0) => {
   if (bytes.length < offset + signature.length) return false;
   for (let i = 0; i < signature.length; i++) if (bytes[offset + i] !== signature[i]) return false;

@@ -1,5 +1,5 @@
 export { ScanRejected, type ScanRejectedCode, type ScanRejectedParams } from "./errors";
-export { detectType, sniffContent, scanContentTypes, scanExtensions, type ScanType, type SniffResult, type RefusedImageType } from "./detect-type";
+export { detectType, sniffContent, scanContentTypes, scanExtensions, scanTypeOfContent, type ScanType, type SniffResult, type RefusedImageType } from "./detect-type";
 export { checkFileName, downloadFileName, MAX_FILE_NAME_LENGTH } from "./file-name";
 export {
   processScan,
@@ -37,3 +37,4 @@ export {
 } from "./phash";
 export { LOOK_ALIKE_MAX_BITS, MIRROR_TWIN_MARGIN_BITS } from "./look-alikes";
 export { createScanLimiter, scanLimiter, type ScanLimiter } from "./limiter";
+export { analysisMmPerPx, footprintRect } from "./footprint";

@@ -5,7 +5,7 @@ import { newObjectKey, type ObjectStore } from "@/lib/object-store";
 import { defaultScanLimits, encodeGreyRaster, processScan } from "@/lib/scans";
 import { motifSvg, renderScan, type ScanStyle } from "./scan-art";
 import { demoUsers } from "./users";
-import { scanKeys, scanRow } from "@/lib/data/scan-rows";
+import { scanKeys, scanRow } from "@/lib/data/scans/rows";
 
 // Demo scans: invented motif artwork (scripts/seed/scan-art.ts) rendered at a known DPI, run through the same
 // pipeline as an upload (lib/scans), stored in the object store and recorded like a keeper's upload. A mirror
