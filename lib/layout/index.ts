@@ -1,19 +1,21 @@
 import { z } from "zod";
 import { issueMessage, issuePath } from "@/lib/errors";
 import { buildPattern } from "./arrangements";
-import { waxAreas } from "./area";
+import { areaSource, fieldDenseField, waxAreas } from "./area";
 import { LayoutInputError, layoutError, type LayoutIssue } from "./errors";
 import { fitTable } from "./fit";
 import { buildGrid, perMetreCounts, pieceCounts, rowDetails } from "./grid";
 import { listImpressions } from "./impressions";
 import { EPS_MM } from "./limits";
 import { buildStampShape } from "./outline";
+import { polygonBackend, type PolygonBackend } from "./polygon";
 import { previewSvg } from "./preview";
 import { checkGap, layoutInputSchema, stampSizeSchema } from "./schema";
 import { pathNameOf, planeGroupOf } from "./symmetry";
 import type { LayoutInput, LayoutResult, LayoutSpec, StampSize } from "./types";
 
 export { LayoutInputError } from "./errors";
+export { initLayoutEngine, polygonBackend, polygonBackendFailure, type PolygonBackend } from "./polygon";
 export type { LayoutIssue } from "./errors";
 export type * from "./types";
 
@@ -54,12 +56,17 @@ export function withStamp(layout: Omit<LayoutSpec, "stamp">, stamp: unknown): La
  * length). Faces: sides = 2 doubles impressions and wax (the back registered through the cloth).
  * Throws LayoutInputError (field, code, params) for input it cannot lay out; never any other error for bad input.
  */
-export function computeLayout(input: LayoutInput): LayoutResult {
-  return layoutOf(parseLayoutInput(input));
+export function computeLayout(input: LayoutInput, options: LayoutOptions = {}): LayoutResult {
+  return layoutOf(parseLayoutInput(input), options);
+}
+
+export interface LayoutOptions {
+  /** The polygon backend for the waxed areas; default the fastest one loaded (see `initLayoutEngine`). */
+  polygons?: PolygonBackend;
 }
 
 /** As computeLayout, for input already parsed with the engine's schema (the API parses its body once). */
-export function layoutOf(spec: LayoutSpec): LayoutResult {
+export function layoutOf(spec: LayoutSpec, options: LayoutOptions = {}): LayoutResult {
   const { cloth, stamp, gap, sides } = spec;
   const bandX0 = cloth.margins.leftMm;
   const bandX1 = cloth.widthMm - cloth.margins.rightMm;
@@ -100,7 +107,8 @@ export function layoutOf(spec: LayoutSpec): LayoutResult {
   const stamped = rows.filter((r) => r.whole + r.clipped > 0);
   const perMetre = perMetreCounts(grid);
   const counts = pieceCounts(grid);
-  const areas = waxAreas(grid, shape);
+  const backend = options.polygons ?? polygonBackend();
+  const areas = waxAreas(backend, areaSource(grid, shape, { dense: fieldDenseField(grid), complex: "stamp.outline" }), shape);
   const perMetreFactor = 1000 / pattern.periodYMm;
 
   const result: LayoutResult = {
