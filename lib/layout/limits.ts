@@ -21,6 +21,16 @@ export const FLATTEN_TOLERANCE_MM = 0.01;
 export const OUTLINE_FOOTPRINT_SLACK_MM = 0.5;
 export const OUTLINE_MIN_AREA_MM2 = 0.01;
 
+/** The most a border may reach under the field (negative gap to the field), mm. */
+export const BORDER_GAP_TO_FIELD_MIN_MM = -STAMP_SIDE_MAX_MM;
+/**
+ * Where the field and a border overlap, the engine unites them over one common period (the least common multiple
+ * of their periods on the 0.1 µm grid) when it is at most this long; over a window this long otherwise.
+ */
+export const OVERLAP_PERIOD_MAX_MM = 10_000;
+/** Length of the pieces the overlap windows are cut into, to keep each union small. */
+export const OVERLAP_CHUNK_MM = 1_000;
+
 /** A diagonal step must be p/q with q at most this, so the layout repeats after q rows. */
 export const DIAGONAL_MAX_DENOMINATOR = 12;
 export const ROTATION_ORDERS = [2, 3, 4, 6] as const;

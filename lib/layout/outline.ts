@@ -157,9 +157,9 @@ export interface StampInput {
  * Builds the wax shape of a stamp: its outline (SVG path data in mm, flattened to FLATTEN_TOLERANCE_MM,
  * fill rule applied, cut to the footprint), else its footprint w × h with area factor = coverage ratio (1 when
  * absent). Throws LayoutInputError on path data that is malformed, has no area, is too complex, or strays more than
- * OUTLINE_FOOTPRINT_SLACK_MM outside the footprint.
+ * OUTLINE_FOOTPRINT_SLACK_MM outside the footprint, naming `field` (the outline's path in the input).
  */
-export function buildStampShape(stamp: StampInput): StampShape {
+export function buildStampShape(stamp: StampInput, field = "stamp.outline"): StampShape {
   const { widthMm, heightMm } = stamp;
   const fillRule = stamp.fillRule ?? "nonzero";
   if (stamp.outline === undefined) {
@@ -186,23 +186,23 @@ export function buildStampShape(stamp: StampInput): StampShape {
 
   const d = stamp.outline.trim();
   const errorAt = pathDataErrorAt(d);
-  if (errorAt >= 0) throw layoutError("stamp.outline", "outlineInvalid", { position: errorAt });
+  if (errorAt >= 0) throw layoutError(field, "outlineInvalid", { position: errorAt });
 
   let flat: Ring[];
   try {
     flat = flattenPathData(d);
   } catch {
-    throw layoutError("stamp.outline", "outlineInvalid", { position: 0 });
+    throw layoutError(field, "outlineInvalid", { position: 0 });
   }
   const vertexCount = flat.reduce((n, r) => n + r.length, 0);
   if (vertexCount > OUTLINE_MAX_VERTICES) {
-    throw layoutError("stamp.outline", "outlineTooComplex", { vertices: vertexCount, max: OUTLINE_MAX_VERTICES });
+    throw layoutError(field, "outlineTooComplex", { vertices: vertexCount, max: OUTLINE_MAX_VERTICES });
   }
   if (flat.length > 0) {
     const raw = boxOfPoints(flat.flat());
     const s = OUTLINE_FOOTPRINT_SLACK_MM;
     if (raw.x0 < -s || raw.y0 < -s || raw.x1 > widthMm + s || raw.y1 > heightMm + s) {
-      throw layoutError("stamp.outline", "outlineOutsideFootprint", {
+      throw layoutError(field, "outlineOutsideFootprint", {
         widthMm,
         heightMm,
         outlineX0Mm: raw.x0,
@@ -215,7 +215,7 @@ export function buildStampShape(stamp: StampInput): StampShape {
   const rings = flat.length > 0 ? simplifyRings(flat, fillRule, widthMm, heightMm) : [];
   const areaMm2 = netArea(rings);
   if (rings.length === 0 || areaMm2 < OUTLINE_MIN_AREA_MM2) {
-    throw layoutError("stamp.outline", "outlineNoArea", { minMm2: OUTLINE_MIN_AREA_MM2 });
+    throw layoutError(field, "outlineNoArea", { minMm2: OUTLINE_MIN_AREA_MM2 });
   }
   const box = boxOfPoints(rings.flat());
   return {
