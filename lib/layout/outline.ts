@@ -117,7 +117,7 @@ function toClipper(rings: Ring[]): Paths {
 
 /**
  * Resolves overlaps and the fill rule into simple rings (outer positive, holes negative by the shoelace formula)
- * cut to the footprint [0, w] × [0, h], mm: the copper cannot print outside its frame. clipper-lib on a 0.1 µm grid.
+ * cut to the footprint [0, w] × [0, h], mm: the copper cannot print outside its frame. clipper-lib on the polygon grid (CLIPPER_UNITS_PER_MM).
  */
 export function simplifyRings(rings: Ring[], fillRule: FillRule, widthMm: number, heightMm: number): Ring[] {
   const fill = fillRule === "evenodd" ? ClipperLib.PolyFillType.pftEvenOdd : ClipperLib.PolyFillType.pftNonZero;

@@ -31,7 +31,7 @@ function gcd(a: number, b: number): number {
 }
 
 /**
- * The least common multiple of two periods (mm), taken on the engine's 0.1 µm grid, or null when it is longer
+ * The least common multiple of two periods (mm), taken on the engine's polygon grid (10 nm), or null when it is longer
  * than `maxMm`. Periods that are not whole numbers of grid steps (a hexagonal rosette row, √3/2 of a pitch)
  * are rounded to the grid, as every position the polygon engine sees is; they then have no short common multiple.
  */

@@ -63,8 +63,8 @@ interface Budget {
 
 /**
  * Appends to `out` the wax rings of one layer's impressions reaching into the window y ∈ [yStart, yEnd] (mm), each cut
- * to the layer's band, to `across` and to the window, as integers on a 0.1 µm grid in coordinates local to the window
- * (x from the middle of `across`, y from yStart), so that the numbers stay in the polygon engines' fast range.
+ * to the layer's band, to `across` and to the window, as integers on the polygon grid (CLIPPER_UNITS_PER_MM), in
+ * coordinates local to the window (x from the middle of `across`, y from yStart) so that the numbers stay small.
  */
 function gatherRings(
   source: AreaSource,

@@ -200,7 +200,7 @@ describe("overlap between the field and a border is counted once", () => {
     expect(r.waxedAreaTotalM2).toBeCloseTo(0.5 * 10 + 0.4 * 0.546 - 0.2 * 0.273, 9);
   });
 
-  it("finds common periods on the 0.1 µm grid, and none past the bound", () => {
+  it("finds common periods on the polygon grid, and none past the bound", () => {
     expect(commonPeriod(195, 110)).toBe(4290);
     expect(commonPeriod(202.5, 110)).toBe(8910);
     expect(commonPeriod(197.3, 113.7)).toBeNull();
