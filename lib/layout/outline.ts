@@ -111,30 +111,33 @@ export function flattenPathData(d: string, toleranceMm = FLATTEN_TOLERANCE_MM): 
   return rings;
 }
 
-function toClipper(rings: Ring[]): Paths {
-  return rings.map((r) => r.map(([x, y]) => ({ X: Math.round(x * CLIPPER_UNITS_PER_MM), Y: Math.round(y * CLIPPER_UNITS_PER_MM) })));
+/** Rings on the polygon grid, less a whole-unit offset (the footprint's middle) that keeps clipper-lib in its fast range. */
+function toClipper(rings: Ring[], cx: number, cy: number): Paths {
+  return rings.map((r) => r.map(([x, y]) => ({ X: Math.round(x * CLIPPER_UNITS_PER_MM) - cx, Y: Math.round(y * CLIPPER_UNITS_PER_MM) - cy })));
 }
 
 /**
  * Resolves overlaps and the fill rule into simple rings (outer positive, holes negative by the shoelace formula)
- * cut to the footprint [0, w] × [0, h], mm: the copper cannot print outside its frame. clipper-lib on the polygon grid (CLIPPER_UNITS_PER_MM).
+ * cut to the footprint [0, w] × [0, h], mm: the copper cannot print outside its frame. clipper-lib on the polygon
+ * grid (CLIPPER_UNITS_PER_MM).
  */
 export function simplifyRings(rings: Ring[], fillRule: FillRule, widthMm: number, heightMm: number): Ring[] {
   const fill = fillRule === "evenodd" ? ClipperLib.PolyFillType.pftEvenOdd : ClipperLib.PolyFillType.pftNonZero;
-  const frame = toClipper([
-    [
-      [0, 0],
-      [widthMm, 0],
-      [widthMm, heightMm],
-      [0, heightMm],
-    ],
-  ]);
+  const cx = Math.round((widthMm / 2) * CLIPPER_UNITS_PER_MM);
+  const cy = Math.round((heightMm / 2) * CLIPPER_UNITS_PER_MM);
+  const footprint: Ring = [
+    [0, 0],
+    [widthMm, 0],
+    [widthMm, heightMm],
+    [0, heightMm],
+  ];
+  const frame = toClipper([footprint], cx, cy);
   const clipper = new ClipperLib.Clipper();
-  clipper.AddPaths(toClipper(rings), ClipperLib.PolyType.ptSubject, true);
+  clipper.AddPaths(toClipper(rings, cx, cy), ClipperLib.PolyType.ptSubject, true);
   clipper.AddPaths(frame, ClipperLib.PolyType.ptClip, true);
   const simple: Paths = [];
   clipper.Execute(ClipperLib.ClipType.ctIntersection, simple, fill, ClipperLib.PolyFillType.pftNonZero);
-  const out: Ring[] = simple.map((path) => path.map((p) => [p.X / CLIPPER_UNITS_PER_MM, p.Y / CLIPPER_UNITS_PER_MM] as const));
+  const out: Ring[] = simple.map((path) => path.map((p) => [(p.X + cx) / CLIPPER_UNITS_PER_MM, (p.Y + cy) / CLIPPER_UNITS_PER_MM] as const));
   // Clipper gives holes the opposite turn of their outer ring; flip all so that outer rings come out positive.
   if (netArea(out) < 0) for (const ring of out) ring.reverse();
   return out;

@@ -1,7 +1,7 @@
 import { layoutError } from "./errors";
 import { applyAffine, determinant } from "./geometry";
 import { countOf, intersectRanges, overlapRange, type Grid, type IndexRange, type PlacedSet } from "./grid";
-import { AREA_WINDOW_MAX_IMPRESSIONS, AREA_WINDOW_MAX_VERTICES, CLIPPER_UNITS_PER_MM } from "./limits";
+import { AREA_TILE_MAX_MM, AREA_WINDOW_MAX_IMPRESSIONS, AREA_WINDOW_MAX_VERTICES, CLIPPER_UNITS_PER_MM } from "./limits";
 import type { StampShape } from "./outline";
 import type { PolygonBackend } from "./polygon";
 
@@ -61,50 +61,55 @@ interface Budget {
   vertices: number;
 }
 
+/** A rectangle of the cloth (mm) whose rings go to the polygon backend in one call. */
+interface Tile {
+  x0Mm: number;
+  x1Mm: number;
+  y0Mm: number;
+  y1Mm: number;
+}
+
 /**
- * Appends to `out` the wax rings of one layer's impressions reaching into the window y ∈ [yStart, yEnd] (mm), each cut
- * to the layer's band, to `across` and to the window, as integers on the polygon grid (CLIPPER_UNITS_PER_MM), in
- * coordinates local to the window (x from the middle of `across`, y from yStart) so that the numbers stay small.
+ * Counts into `budget` (refusing a window too big to unite), or appends to `out`, the wax rings of one layer's
+ * impressions reaching into `tile` (the window, or a part of it), each cut to the layer's band and to the tile, as
+ * integers on the polygon grid (CLIPPER_UNITS_PER_MM) in coordinates from the tile's middle.
  */
-function gatherRings(
-  source: AreaSource,
-  yStart: number,
-  yEnd: number,
-  options: WindowOptions,
-  across: AcrossRange,
-  out: Float64Array[],
-  budget: Budget,
-) {
+function gatherRings(source: AreaSource, tile: Tile, options: WindowOptions, out: Float64Array[] | null, budget: Budget | null) {
   const { grid, prepared } = source;
   const { pattern, originXMm } = grid;
-  const xc = (across.x0Mm + across.x1Mm) / 2;
-  const cutX0 = Math.max(grid.bandX0Mm, across.x0Mm);
-  const cutX1 = Math.min(grid.bandX1Mm, across.x1Mm);
+  const xc = (tile.x0Mm + tile.x1Mm) / 2;
+  const yc = (tile.y0Mm + tile.y1Mm) / 2;
+  const cutX0 = Math.max(grid.bandX0Mm, tile.x0Mm);
+  const cutX1 = Math.min(grid.bandX1Mm, tile.x1Mm);
   if (cutX1 <= cutX0) return;
   const left = cutX0 - xc;
   const right = cutX1 - xc;
-  const height = yEnd - yStart;
+  const top = tile.y0Mm - yc;
+  const bottom = tile.y1Mm - yc;
 
   for (const { set, rings, vertexCount } of prepared) {
     const wax = set.placement.wax;
-    let rows: IndexRange = overlapRange(yStart, yEnd, wax.y0, wax.y1, pattern.periodYMm);
+    let rows: IndexRange = overlapRange(tile.y0Mm, tile.y1Mm, wax.y0, wax.y1, pattern.periodYMm);
     if (!options.periodic) rows = intersectRanges(rows, set.memberY);
     const columns = intersectRanges(set.memberX, overlapRange(cutX0, cutX1, originXMm + wax.x0, originXMm + wax.x1, pattern.pitchXMm));
     const perRow = options.partialOnly ? countOf(columns) - countOf(intersectRanges(columns, set.insideX)) : countOf(columns);
     const added = countOf(rows) * perRow;
     if (added === 0) continue;
-    budget.impressions += added;
-    budget.vertices += added * vertexCount;
-    guard(source, budget);
+    if (budget) {
+      budget.impressions += added;
+      budget.vertices += added * vertexCount;
+      guard(source, budget);
+    }
+    if (!out) continue;
 
     for (let j = rows.first; j <= rows.last; j++) {
-      const dy = j * pattern.periodYMm - yStart;
+      const dy = j * pattern.periodYMm - yc;
       for (let i = columns.first; i <= columns.last; i++) {
         if (options.partialOnly && i >= set.insideX.first && i <= set.insideX.last) continue;
         const dx = originXMm + i * pattern.pitchXMm - xc;
-        const inside = wax.x0 + dx >= left && wax.x1 + dx <= right && wax.y0 + dy >= 0 && wax.y1 + dy <= height;
+        const inside = wax.x0 + dx >= left && wax.x1 + dx <= right && wax.y0 + dy >= top && wax.y1 + dy <= bottom;
         for (const ring of rings) {
-          const points = inside ? shifted(ring, dx, dy) : clipToRect(ring, dx, dy, left, right, 0, height);
+          const points = inside ? shifted(ring, dx, dy) : clipToRect(ring, dx, dy, left, right, top, bottom);
           if (points.length < 6) continue;
           for (let k = 0; k < points.length; k++) points[k] = Math.round(points[k] * S);
           out.push(points);
@@ -171,7 +176,9 @@ function guard(source: AreaSource, budget: Budget) {
 /**
  * Waxed area (mm², before any coverage factor) of the union of the impressions of all `sources` reaching into the
  * window y ∈ [yStart, yEnd], each cut to its own band and to `across` (default: the first source's band), overlaps
- * counted once. One call of the polygon backend; never every impression of a run.
+ * counted once; never every impression of a run. The window goes to the polygon backend in tiles of at most
+ * AREA_TILE_MAX_MM a side (areas add up over a partition, and a union cut to a tile is the union of the rings cut
+ * to it), so that grid coordinates stay in clipper-lib's fast integer range and each union stays small.
  */
 export function windowArea(
   backend: PolygonBackend,
@@ -183,8 +190,28 @@ export function windowArea(
 ): number {
   if (yEnd <= yStart || sources.length === 0) return 0;
   const range = across ?? { x0Mm: sources[0].grid.bandX0Mm, x1Mm: sources[0].grid.bandX1Mm };
-  const rings: Float64Array[] = [];
+  const whole: Tile = { x0Mm: range.x0Mm, x1Mm: range.x1Mm, y0Mm: yStart, y1Mm: yEnd };
   const budget: Budget = { impressions: 0, vertices: 0 };
-  for (const source of sources) gatherRings(source, yStart, yEnd, options, range, rings, budget);
-  return backend.unionArea(rings) / (S * S);
+  for (const source of sources) gatherRings(source, whole, options, null, budget);
+  if (budget.impressions === 0) return 0;
+
+  const nx = Math.max(1, Math.ceil((range.x1Mm - range.x0Mm) / AREA_TILE_MAX_MM));
+  const ny = Math.max(1, Math.ceil((yEnd - yStart) / AREA_TILE_MAX_MM));
+  const w = (range.x1Mm - range.x0Mm) / nx;
+  const h = (yEnd - yStart) / ny;
+  let area = 0;
+  for (let a = 0; a < nx; a++) {
+    for (let b = 0; b < ny; b++) {
+      const tile: Tile = {
+        x0Mm: range.x0Mm + a * w,
+        x1Mm: a === nx - 1 ? range.x1Mm : range.x0Mm + (a + 1) * w,
+        y0Mm: yStart + b * h,
+        y1Mm: b === ny - 1 ? yEnd : yStart + (b + 1) * h,
+      };
+      const rings: Float64Array[] = [];
+      for (const source of sources) gatherRings(source, tile, options, rings, null);
+      area += backend.unionArea(rings);
+    }
+  }
+  return area / (S * S);
 }
