@@ -9,6 +9,7 @@ import {
   OUTLINE_MAX_VERTICES,
   OUTLINE_MIN_AREA_MM2,
 } from "./limits";
+import { polylineRings } from "./polyline";
 
 export type FillRule = "nonzero" | "evenodd";
 
@@ -193,7 +194,7 @@ export function buildStampShape(stamp: StampInput, field = "stamp.outline"): Sta
 
   let flat: Ring[];
   try {
-    flat = flattenPathData(d);
+    flat = polylineRings(d) ?? flattenPathData(d);
   } catch {
     throw layoutError(field, "outlineInvalid", { position: 0 });
   }
