@@ -1,12 +1,15 @@
-// Benchmark of the layout engine against a straightforward full union of every impression, measured side by side.
-// Run: npx tsx scripts/bench-layout.ts
+// Benchmark of the layout engine: its polygon backends side by side (with and without border layers), then the
+// engine against a straightforward full union of every impression.
+// Run: npx tsx scripts/bench-layout.ts (or npm run bench -- layout)
 import ClipperLib, { type Path, type Paths } from "clipper-lib";
-import { computeLayout, type LayoutInput } from "@/lib/layout";
+import { computeLayout, initLayoutEngine, type LayoutInput, type PolygonBackend } from "@/lib/layout";
 import { buildPattern } from "@/lib/layout/arrangements";
 import { prepareSets } from "@/lib/layout/area";
 import { buildGrid } from "@/lib/layout/grid";
 import { CLIPPER_UNITS_PER_MM } from "@/lib/layout/limits";
 import { buildStampShape } from "@/lib/layout/outline";
+import { clipperLibBackend } from "@/lib/layout/polygon";
+import { clipper2TsBackend } from "./lib/clipper2-ts-backend";
 import { lobedMotif } from "./lib/motifs";
 
 const CLOTH_WIDTH_MM = 1150;
@@ -92,6 +95,96 @@ function fullUnion(vertices: number, lengthM: number, edges: Edges): { ms: numbe
   return { ms: performance.now() - t0, areaM2: areaMm2 / 1e6, impressions };
 }
 
+type BorderCase = "none" | "apart" | "under";
+const BORDER_CASES: Array<[BorderCase, string]> = [
+  ["none", "no border"],
+  ["apart", "border both sides, 10 mm apart"],
+  ["under", "border both sides, 10 mm under the field"],
+];
+const BORDER_MM = 100;
+const RUNS = 11;
+
+/** 100 m of the half-drop plan; a 100 mm border motif of the same detail on both sides, stepped 95 mm (overlapping). */
+function withBorder(vertices: number, lengthM: number, border: BorderCase): LayoutInput {
+  const li = input(vertices, lengthM, "whole");
+  if (border === "none") return li;
+  const stamp = { widthMm: BORDER_MM, heightMm: BORDER_MM, outline: lobedMotif(vertices, BORDER_MM) };
+  return { ...li, borders: [{ side: "both", stamp, gapYMm: -5, gapToFieldMm: border === "apart" ? 10 : -10 }] };
+}
+
+/** Median ms and area per backend; the backends take turns run by run, so load from other work falls on all alike. */
+function timeBackends(li: LayoutInput, backends: PolygonBackend[], runs: number): Array<{ ms: number; areaM2: number }> {
+  const times: number[][] = backends.map(() => []);
+  const areas = backends.map((polygons) => computeLayout(li, { polygons }).waxedAreaTotalM2);
+  for (let k = 0; k < runs; k++) {
+    backends.forEach((polygons, b) => {
+      const t0 = performance.now();
+      computeLayout(li, { polygons });
+      times[b].push(performance.now() - t0);
+    });
+  }
+  return backends.map((_, b) => ({ ms: median(times[b]), areaM2: areas[b] }));
+}
+
+const loadStart = performance.now();
+const wasm = await initLayoutEngine();
+const loadMs = performance.now() - loadStart;
+if (wasm.name !== "clipper2-wasm") throw new Error("Clipper2 (WebAssembly) did not load");
+const BACKENDS: PolygonBackend[] = [clipperLibBackend, clipper2TsBackend, wasm];
+
+const backendRows: string[][] = [];
+let worstDiff = 0;
+for (const vertices of VERTICES) {
+  for (const [border, label] of BORDER_CASES) {
+    const li = withBorder(vertices, 100, border);
+    const r = computeLayout(li, { polygons: clipperLibBackend });
+    const timed = timeBackends(li, BACKENDS, RUNS);
+    const diffs = timed.slice(1).map((t) => Math.abs(t.areaM2 / timed[0].areaM2 - 1));
+    worstDiff = Math.max(worstDiff, ...diffs);
+    const overlap = r.overlaps.length ? `${r.overlaps[0].periodMm} mm` : "-";
+    backendRows.push([
+      String(vertices),
+      label,
+      String(r.impressionsTotal),
+      overlap,
+      ...timed.map((t) => t.ms.toFixed(1)),
+      (timed[0].ms / timed[2].ms).toFixed(1),
+      diffs.map((d) => d.toExponential(1)).join(" / "),
+      timed[2].areaM2.toFixed(4),
+    ]);
+  }
+}
+
+/** One union of every impression of a 1.4 m stretch (33 impressions) handed to each backend directly. */
+function rawUnion(vertices: number): string[] {
+  const stamp = { widthMm: STAMP_MM, heightMm: STAMP_MM, outline: motif(vertices) };
+  const shape = buildStampShape(stamp);
+  const pattern = buildPattern({ arrangement: "half-drop", widthMm: STAMP_MM, heightMm: STAMP_MM, gapXMm: GAP_MM, gapYMm: GAP_MM }, shape.box);
+  const grid = buildGrid(pattern, 0, CLOTH_WIDTH_MM, 1400, "centre", "whole");
+  const rings: Float64Array[] = [];
+  for (const { set, rings: placed } of prepareSets(grid, shape)) {
+    for (let j = set.memberY.first; j <= set.memberY.last; j++) {
+      for (let i = set.memberX.first; i <= set.memberX.last; i++) {
+        const dx = grid.originXMm + i * pattern.pitchXMm - CLOTH_WIDTH_MM / 2;
+        const dy = j * pattern.periodYMm;
+        for (const ring of placed) rings.push(ring.map((v, k) => Math.round((v + (k % 2 ? dy : dx)) * CLIPPER_UNITS_PER_MM)));
+      }
+    }
+  }
+  for (const b of BACKENDS) b.unionArea(rings);
+  const times: number[][] = BACKENDS.map(() => []);
+  for (let k = 0; k < RUNS; k++) {
+    BACKENDS.forEach((b, i) => {
+      const t0 = performance.now();
+      b.unionArea(rings);
+      times[i].push(performance.now() - t0);
+    });
+  }
+  const cells = times.map((t) => median(t).toFixed(1));
+  return [String(vertices), String(rings.reduce((n, r) => n + r.length / 2, 0)), ...cells];
+}
+const rawRows = VERTICES.map(rawUnion);
+
 // Warm the JIT on every code path first so the first row is not charged for compilation.
 for (const edges of EDGES) for (const vertices of VERTICES) computeLayout(input(vertices, 1, edges));
 
@@ -142,8 +235,25 @@ for (const edges of EDGES) {
 const header = ["edges", "vertices", "run", "impressions", "engine ms", "full union ms", "union/engine", "rel. area diff", "waxed m²"];
 const widths = header.map((h, k) => Math.max(h.length, ...rows.map((r) => r[k].length)));
 const line = (cells: string[]) => cells.map((c, k) => c.padStart(widths[k])).join("  ");
+const table = (header: string[], rows: string[][]) => {
+  const w = header.map((h, k) => Math.max(h.length, ...rows.map((r) => r[k].length)));
+  const fmt = (cells: string[]) => cells.map((c, k) => c.padStart(w[k])).join("  ");
+  console.log(fmt(header));
+  for (const r of rows) console.log(fmt(r));
+};
+console.log(`Polygon backends side by side: 100 m, ${CLOTH_WIDTH_MM} mm cloth, ${STAMP_MM} mm motif half-drop gap ${GAP_MM} mm, whole edges;`);
+console.log(`border: ${BORDER_MM} mm motif of the same detail, both sides, stepped ${BORDER_MM - 5} mm; median of ${RUNS} warm runs each (backends in turn), ms`);
+console.log(`node ${process.version}; Clipper2 (WebAssembly) loaded in ${loadMs.toFixed(1)} ms`);
+table(
+  ["vertices", "layers", "impressions", "overlap period", "clipper-lib", "clipper2-ts", "clipper2-wasm", "lib/wasm", "rel. area diff ts / wasm", "waxed m²"],
+  backendRows,
+);
+console.log(`largest relative area difference from clipper-lib: ${worstDiff.toExponential(2)} (limit 1e-9: ${worstDiff < 1e-9 ? "met" : "MISSED"})`);
+console.log(`\nOne union of a 1.4 m stretch (33 impressions) per backend, median of ${RUNS}, ms`);
+table(["vertices", "union vertices", "clipper-lib", "clipper2-ts", "clipper2-wasm"], rawRows);
+console.log("");
 console.log(`Layout engine vs full union: ${CLOTH_WIDTH_MM} mm cloth, ${STAMP_MM} mm stamp, half-drop, gap ${GAP_MM} mm (overlapping)`);
-console.log(`node ${process.version}; engine = median of 7 warm computeLayout calls; full union = one clipper-lib union of every impression, cut to the band`);
+console.log(`engine = median of 7 warm computeLayout calls (${wasm.name}); full union = one clipper-lib union of every impression, cut to the band`);
 console.log(line(header));
 for (const r of rows) console.log(line(r));
 for (const v of verdicts) console.log(v);

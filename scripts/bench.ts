@@ -5,9 +5,11 @@ import { join } from "node:path";
 import { projectRoot } from "./lib/config";
 
 const only = process.argv[2];
-const benches = readdirSync(join(projectRoot, "scripts"))
-  .filter((f) => /^bench-.+\.ts$/.test(f) && (!only || f.includes(only)))
+const all = readdirSync(join(projectRoot, "scripts"))
+  .filter((f) => /^bench-.+\.ts$/.test(f))
   .sort();
+// An exact name runs that one alone (`layout` is the engine, not also `layout-api`); otherwise every match.
+const benches = !only ? all : all.includes(`bench-${only}.ts`) ? [`bench-${only}.ts`] : all.filter((f) => f.includes(only));
 if (benches.length === 0) {
   console.error(only ? `no benchmark matches "${only}"` : "no scripts/bench-*.ts found");
   process.exit(1);

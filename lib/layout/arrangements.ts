@@ -49,8 +49,9 @@ export interface PatternSpec {
   rotationOrder?: number;
 }
 
-const MIRROR_X = (w: number): Affine => [-1, 0, 0, 1, w, 0];
-const TURN_180 = (w: number, h: number): Affine => [-1, 0, 0, -1, w, h];
+/** Mirror left–right within a width w, and turn 180° within a w × h box (mm). */
+export const MIRROR_X = (w: number): Affine => [-1, 0, 0, 1, w, 0];
+export const TURN_180 = (w: number, h: number): Affine => [-1, 0, 0, -1, w, h];
 
 /**
  * Builds the repeating unit of an arrangement (all mm). Repeat cell cw = w + gap x, ch = h + gap y.
@@ -184,7 +185,8 @@ export function buildPattern(spec: PatternSpec, waxBox: Box): Pattern {
   }
 }
 
-function mappedBox(m: Affine, b: Box): Box {
+/** Box of the box b after the map m. */
+export function mappedBox(m: Affine, b: Box): Box {
   const w = b.x1 - b.x0;
   const h = b.y1 - b.y0;
   return mappedRectBox(compose(m, translation(b.x0, b.y0)), w, h);

@@ -1,19 +1,23 @@
 import { z } from "@/lib/zod";
 import { issueMessage, issuePath } from "@/lib/errors";
 import { buildPattern } from "./arrangements";
-import { waxAreas } from "./area";
+import { areaSource, fieldDenseField, waxAreas } from "./area";
 import { LayoutInputError, layoutError, type LayoutIssue } from "./errors";
 import { fitTable } from "./fit";
-import { buildGrid, perMetreCounts, pieceCounts, rowDetails } from "./grid";
+import { planBorders } from "./borders";
+import { buildGrid, perMetreCounts, rowDetails } from "./grid";
 import { listImpressions } from "./impressions";
+import { bandLeftover, layerResult, measureBorder, measureOverlaps, type MeasuredLayer } from "./layers";
 import { EPS_MM } from "./limits";
 import { buildStampShape } from "./outline";
+import { polygonBackend, type PolygonBackend } from "./polygon";
 import { previewSvg } from "./preview";
 import { checkGap, layoutInputSchema, stampSizeSchema } from "./schema";
 import { pathNameOf, planeGroupOf } from "./symmetry";
-import type { LayoutInput, LayoutResult, LayoutSpec, StampSize } from "./types";
+import type { LayerOverlap, LayerResult, LayoutInput, LayoutResult, LayoutSpec, StampSize } from "./types";
 
 export { LayoutInputError } from "./errors";
+export { initLayoutEngine, polygonBackend, polygonBackendFailure, type PolygonBackend } from "./polygon";
 export type { LayoutIssue } from "./errors";
 export type * from "./types";
 
@@ -54,12 +58,17 @@ export function withStamp(layout: Omit<LayoutSpec, "stamp">, stamp: unknown): La
  * length). Faces: sides = 2 doubles impressions and wax (the back registered through the cloth).
  * Throws LayoutInputError (field, code, params) for input it cannot lay out; never any other error for bad input.
  */
-export function computeLayout(input: LayoutInput): LayoutResult {
-  return layoutOf(parseLayoutInput(input));
+export function computeLayout(input: LayoutInput, options: LayoutOptions = {}): LayoutResult {
+  return layoutOf(parseLayoutInput(input), options);
+}
+
+export interface LayoutOptions {
+  /** The polygon backend for the waxed areas; default the fastest one loaded (see `initLayoutEngine`). */
+  polygons?: PolygonBackend;
 }
 
 /** As computeLayout, for input already parsed with the engine's schema (the API parses its body once). */
-export function layoutOf(spec: LayoutSpec): LayoutResult {
+export function layoutOf(spec: LayoutSpec, options: LayoutOptions = {}): LayoutResult {
   const { cloth, stamp, gap, sides } = spec;
   const bandX0 = cloth.margins.leftMm;
   const bandX1 = cloth.widthMm - cloth.margins.rightMm;
@@ -89,59 +98,75 @@ export function layoutOf(spec: LayoutSpec): LayoutResult {
   if (tallest > pieceLength + EPS_MM) {
     throw layoutError(lengthField, "stampLongerThanRun", { stampHeightMm: tallest, lengthMm: pieceLength });
   }
+  const plan = planBorders(spec.borders, bandX0, bandX1, pieceLength, spec.edges, lengthField);
+  const fieldX0 = plan.fieldX0Mm;
+  const fieldX1 = plan.fieldX1Mm;
+  if (widest > fieldX1 - fieldX0 + EPS_MM) {
+    throw layoutError("stamp.widthMm", "stampWiderThanFieldBand", { stampWidthMm: widest, fieldBandWidthMm: fieldX1 - fieldX0 });
+  }
   const windowStart = spec.window.startMm;
   if (windowStart >= pieceLength) {
     throw layoutError("window.startMm", "windowOutsideRun", { lengthMm: pieceLength });
   }
   const windowEnd = Math.min(pieceLength, windowStart + spec.window.lengthMm);
 
-  const grid = buildGrid(pattern, bandX0, bandX1, pieceLength, spec.align, spec.edges);
+  const backend = options.polygons ?? polygonBackend();
+  const grid = buildGrid(pattern, fieldX0, fieldX1, pieceLength, spec.align, spec.edges);
   const rows = rowDetails(grid);
-  const stamped = rows.filter((r) => r.whole + r.clipped > 0);
   const perMetre = perMetreCounts(grid);
-  const counts = pieceCounts(grid);
-  const areas = waxAreas(grid, shape);
-  const perMetreFactor = 1000 / pattern.periodYMm;
+  const source = areaSource(grid, shape, { dense: fieldDenseField(grid), complex: "stamp.outline" });
+  const field: MeasuredLayer = { layer: "field", grid, shape, source, areas: waxAreas(backend, source, shape) };
+  const borders = plan.borders.map((b) => measureBorder(backend, b));
+  const overlaps = measureOverlaps(backend, field, borders, sides);
+  const layers = [field, ...borders].map((m) => layerResult(m, pieces, sides));
+  const sum = (pick: (l: LayerResult) => number) => layers.reduce((t, l) => t + pick(l), 0);
+  const shared = (pick: (o: LayerOverlap) => number) => overlaps.reduce((t, o) => t + pick(o), 0);
+  const waxedAreaPerMetreM2 = sum((l) => l.waxedAreaPerMetreM2) - shared((o) => o.perMetreM2);
+  const impressionsWholeTotal = sum((l) => l.impressionsWholeTotal);
+  const impressionsClippedTotal = sum((l) => l.impressionsClippedTotal);
+  const wholePerMetre = perMetre.whole * sides + sum((l) => (l.layer === "field" ? 0 : l.impressionsPerMetre));
 
   const result: LayoutResult = {
     across: Math.max(...rows.map((r) => r.whole)),
     rowsPerMetre: 1000 / pattern.rowPitchMm,
-    impressionsPerMetre: (perMetre.whole + perMetre.clipped) * sides,
-    impressionsTotal: (counts.whole + counts.clipped) * pieces * sides,
-    leftover: {
-      leftMm: Math.min(...stamped.map((r) => r.leftover.leftMm)),
-      rightMm: Math.min(...stamped.map((r) => r.leftover.rightMm)),
-    },
-    waxedAreaPerMetreM2: (areas.periodMm2 * perMetreFactor * sides) / 1e6,
-    waxedAreaTotalM2: (areas.pieceMm2 * pieces * sides) / 1e6,
+    impressionsPerMetre: sum((l) => l.impressionsPerMetre),
+    impressionsTotal: impressionsWholeTotal + impressionsClippedTotal,
+    leftover: bandLeftover(layers, bandX0, bandX1),
+    waxedAreaPerMetreM2,
+    waxedAreaTotalM2: sum((l) => l.waxedAreaTotalM2) - shared((o) => o.pieceM2) * pieces,
     group: planeGroupOf(pattern),
+    layers,
+    overlaps,
     arrangement: spec.arrangement,
     pathName: pathNameOf(spec.arrangement),
     edges: spec.edges,
     sides,
     bandWidthMm: band,
+    fieldBandMm: { x0: fieldX0, x1: fieldX1 },
     runLengthMm: pieceLength * pieces,
     pieces,
     pieceLengthMm: pieceLength,
     cell: pattern.cell,
     periodMm: pattern.periodYMm,
     rows,
-    wholeImpressionsPerMetre: perMetre.whole * sides,
-    clippedImpressionsPerMetre: perMetre.clipped * sides,
-    impressionsWholeTotal: counts.whole * pieces * sides,
-    impressionsClippedTotal: counts.clipped * pieces * sides,
+    wholeImpressionsPerMetre: wholePerMetre,
+    clippedImpressionsPerMetre: sum((l) => l.impressionsPerMetre) - wholePerMetre,
+    impressionsWholeTotal,
+    impressionsClippedTotal,
     impressionAreaMm2: shape.areaMm2,
-    partialAreaPerMetreM2: (areas.partialPeriodMm2 * perMetreFactor * sides) / 1e6,
-    coverageOfBand: areas.periodMm2 / (pattern.periodYMm * band),
-    fitTable: fitTable(pattern, band, gap.xMm, stamp.widthMm),
+    partialAreaPerMetreM2: (field.areas.partialPeriodMm2 * (1000 / pattern.periodYMm) * sides) / 1e6,
+    coverageOfBand: (waxedAreaPerMetreM2 * 1e6) / sides / (1000 * band),
+    fitTable: fitTable(pattern, fieldX1 - fieldX0, gap.xMm, stamp.widthMm),
     window: { startMm: windowStart, endMm: windowEnd },
   };
 
   if (spec.impressions || spec.preview) {
-    const list = listImpressions(grid, windowStart, windowEnd, sides, cloth.widthMm);
+    const listed = [field, ...borders].map((m) => ({ layer: m.layer, grid: m.grid }));
+    const list = listImpressions(listed, windowStart, windowEnd, sides, cloth.widthMm);
     if (spec.impressions) result.impressions = list;
     if (spec.preview) {
-      result.preview = previewSvg(shape, list, {
+      const drawn = [field, ...borders].map((m) => ({ layer: m.layer, shape: m.shape, x0Mm: m.grid.bandX0Mm, x1Mm: m.grid.bandX1Mm }));
+      result.preview = previewSvg(drawn, list, {
         clothWidthMm: cloth.widthMm,
         bandX0Mm: bandX0,
         bandX1Mm: bandX1,

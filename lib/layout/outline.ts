@@ -10,6 +10,7 @@ import {
   OUTLINE_MAX_VERTICES,
   OUTLINE_MIN_AREA_MM2,
 } from "./limits";
+import { polylineRings } from "./polyline";
 
 export type FillRule = "nonzero" | "evenodd";
 
@@ -176,30 +177,33 @@ export function flattenPathData(d: string, toleranceMm = FLATTEN_TOLERANCE_MM, m
   return rings;
 }
 
-function toClipper(rings: Ring[]): Paths {
-  return rings.map((r) => r.map(([x, y]) => ({ X: Math.round(x * CLIPPER_UNITS_PER_MM), Y: Math.round(y * CLIPPER_UNITS_PER_MM) })));
+/** Rings on the polygon grid, less a whole-unit offset (the footprint's middle) that keeps clipper-lib in its fast range. */
+function toClipper(rings: Ring[], cx: number, cy: number): Paths {
+  return rings.map((r) => r.map(([x, y]) => ({ X: Math.round(x * CLIPPER_UNITS_PER_MM) - cx, Y: Math.round(y * CLIPPER_UNITS_PER_MM) - cy })));
 }
 
 /**
  * Resolves overlaps and the fill rule into simple rings (outer positive, holes negative by the shoelace formula)
- * cut to the footprint [0, w] × [0, h], mm: the copper cannot print outside its frame. clipper-lib on a 0.1 µm grid.
+ * cut to the footprint [0, w] × [0, h], mm: the copper cannot print outside its frame. clipper-lib on the polygon
+ * grid (CLIPPER_UNITS_PER_MM).
  */
 export function simplifyRings(rings: Ring[], fillRule: FillRule, widthMm: number, heightMm: number): Ring[] {
   const fill = fillRule === "evenodd" ? ClipperLib.PolyFillType.pftEvenOdd : ClipperLib.PolyFillType.pftNonZero;
-  const frame = toClipper([
-    [
-      [0, 0],
-      [widthMm, 0],
-      [widthMm, heightMm],
-      [0, heightMm],
-    ],
-  ]);
+  const cx = Math.round((widthMm / 2) * CLIPPER_UNITS_PER_MM);
+  const cy = Math.round((heightMm / 2) * CLIPPER_UNITS_PER_MM);
+  const footprint: Ring = [
+    [0, 0],
+    [widthMm, 0],
+    [widthMm, heightMm],
+    [0, heightMm],
+  ];
+  const frame = toClipper([footprint], cx, cy);
   const clipper = new ClipperLib.Clipper();
-  clipper.AddPaths(toClipper(rings), ClipperLib.PolyType.ptSubject, true);
+  clipper.AddPaths(toClipper(rings, cx, cy), ClipperLib.PolyType.ptSubject, true);
   clipper.AddPaths(frame, ClipperLib.PolyType.ptClip, true);
   const simple: Paths = [];
   clipper.Execute(ClipperLib.ClipType.ctIntersection, simple, fill, ClipperLib.PolyFillType.pftNonZero);
-  const out: Ring[] = simple.map((path) => path.map((p) => [p.X / CLIPPER_UNITS_PER_MM, p.Y / CLIPPER_UNITS_PER_MM] as const));
+  const out: Ring[] = simple.map((path) => path.map((p) => [(p.X + cx) / CLIPPER_UNITS_PER_MM, (p.Y + cy) / CLIPPER_UNITS_PER_MM] as const));
   // Clipper gives holes the opposite turn of their outer ring; flip all so that outer rings come out positive.
   if (netArea(out) < 0) for (const ring of out) ring.reverse();
   return out;
@@ -222,9 +226,9 @@ export interface StampInput {
  * Builds the wax shape of a stamp: its outline (SVG path data in mm, flattened to FLATTEN_TOLERANCE_MM,
  * fill rule applied, cut to the footprint), else its footprint w × h with area factor = coverage ratio (1 when
  * absent). Throws LayoutInputError on path data that is malformed, has no area, is too complex, or strays more than
- * OUTLINE_FOOTPRINT_SLACK_MM outside the footprint.
+ * OUTLINE_FOOTPRINT_SLACK_MM outside the footprint, naming `field` (the outline's path in the input).
  */
-export function buildStampShape(stamp: StampInput): StampShape {
+export function buildStampShape(stamp: StampInput, field = "stamp.outline"): StampShape {
   const { widthMm, heightMm } = stamp;
   const fillRule = stamp.fillRule ?? "nonzero";
   if (stamp.outline === undefined) {
@@ -252,25 +256,26 @@ export function buildStampShape(stamp: StampInput): StampShape {
   const d = stamp.outline.trim();
   // The request schema caps the bytes (OUTLINE_MAX_BYTES); the segments are counted here, before paper.js parses anything.
   const scan = scanPathData(d, OUTLINE_MAX_SEGMENTS);
-  if (scan.segments > OUTLINE_MAX_SEGMENTS) throw layoutError("stamp.outline", "outlineTooManySegments", { max: OUTLINE_MAX_SEGMENTS });
-  if (scan.errorAt >= 0) throw layoutError("stamp.outline", "outlineInvalid", { position: scan.errorAt });
+  if (scan.segments > OUTLINE_MAX_SEGMENTS) throw layoutError(field, "outlineTooManySegments", { max: OUTLINE_MAX_SEGMENTS });
+  if (scan.errorAt >= 0) throw layoutError(field, "outlineInvalid", { position: scan.errorAt });
 
   let flat: Ring[];
   try {
-    flat = flattenPathData(d, FLATTEN_TOLERANCE_MM, OUTLINE_MAX_VERTICES);
+    // Straight lines only: read directly (as many points as segments); curves go through paper.js's flatten.
+    flat = polylineRings(d) ?? flattenPathData(d, FLATTEN_TOLERANCE_MM, OUTLINE_MAX_VERTICES);
   } catch (error) {
     if (error instanceof LayoutInputError) throw error;
-    throw layoutError("stamp.outline", "outlineInvalid", { position: 0 });
+    throw layoutError(field, "outlineInvalid", { position: 0 });
   }
   const vertexCount = flat.reduce((n, r) => n + r.length, 0);
   if (vertexCount > OUTLINE_MAX_VERTICES) {
-    throw layoutError("stamp.outline", "outlineTooComplex", { vertices: vertexCount, max: OUTLINE_MAX_VERTICES });
+    throw layoutError(field, "outlineTooComplex", { vertices: vertexCount, max: OUTLINE_MAX_VERTICES });
   }
   if (flat.length > 0) {
     const raw = boxOfPoints(flat.flat());
     const s = OUTLINE_FOOTPRINT_SLACK_MM;
     if (raw.x0 < -s || raw.y0 < -s || raw.x1 > widthMm + s || raw.y1 > heightMm + s) {
-      throw layoutError("stamp.outline", "outlineOutsideFootprint", {
+      throw layoutError(field, "outlineOutsideFootprint", {
         widthMm,
         heightMm,
         outlineX0Mm: raw.x0,
@@ -283,7 +288,7 @@ export function buildStampShape(stamp: StampInput): StampShape {
   const rings = flat.length > 0 ? simplifyRings(flat, fillRule, widthMm, heightMm) : [];
   const areaMm2 = netArea(rings);
   if (rings.length === 0 || areaMm2 < OUTLINE_MIN_AREA_MM2) {
-    throw layoutError("stamp.outline", "outlineNoArea", { minMm2: OUTLINE_MIN_AREA_MM2 });
+    throw layoutError(field, "outlineNoArea", { minMm2: OUTLINE_MIN_AREA_MM2 });
   }
   const box = boxOfPoints(rings.flat());
   return {

@@ -1,6 +1,7 @@
 import { z } from "@/lib/zod";
 import { issueKey } from "@/lib/errors";
 import {
+  BORDER_GAP_TO_FIELD_MIN_MM,
   CLOTH_WIDTH_MAX_MM,
   CLOTH_WIDTH_MIN_MM,
   DIAGONAL_MAX_DENOMINATOR,
@@ -36,6 +37,11 @@ export type Arrangement = (typeof ARRANGEMENTS)[number];
 export const ALIGNMENTS = ["centre", "left"] as const;
 export const EDGE_MODES = ["whole", "clip"] as const;
 export const FILL_RULES = ["nonzero", "evenodd"] as const;
+export const BORDER_SIDES = ["left", "right", "both"] as const;
+export type BorderSide = (typeof BORDER_SIDES)[number];
+export const BORDER_TURNS = [0, 90, 180, 270] as const;
+/** How the right border of a `both` pair relates to the left one. */
+export const RIGHT_COPIES = ["mirror", "turn", "same"] as const;
 
 const keyed = { error: (issue: z.core.$ZodRawIssue) => issueKey(issue) };
 
@@ -114,6 +120,63 @@ export const stampSizeSchema = z.object(stampShape, keyed);
 
 export type StampSize = z.output<typeof stampSizeSchema>;
 
+/**
+ * A border: one stamp repeated down the length along the left and/or right edge of the band, inside it. It takes
+ * a strip as wide as the laid stamp (its width, or its height when turned a quarter) at `offsetMm` from the band
+ * edge; the field band then starts `gapToFieldMm` beyond the strip (negative: the field reaches under the
+ * border). Down the strip the impressions sit at startMm + k·(laid height + gapYMm). The stamp is mirrored first
+ * (when `mirror`), then turned clockwise as seen on the cloth by `turn` degrees. For `side: "both"` the right
+ * border is the left one's mirror image across the cloth (`rightCopy: "mirror"`, the default, so the pair reads
+ * symmetrically), the left one turned 180° (`"turn"`), or the same (`"same"`).
+ */
+export const borderSchema = z
+  .object(
+    {
+      side: z.enum(BORDER_SIDES, keyed),
+      stamp: stampSizeSchema,
+      turn: z.literal(BORDER_TURNS, keyed).default(0),
+      mirror: z.boolean(keyed).default(false),
+      rightCopy: z.enum(RIGHT_COPIES, keyed).optional(),
+      gapYMm: mm(-(STAMP_SIDE_MAX_MM - MIN_STEP_MM), GAP_MAX_MM).default(0),
+      gapToFieldMm: mm(BORDER_GAP_TO_FIELD_MIN_MM, GAP_MAX_MM).default(0),
+      offsetMm: mm(0, CLOTH_WIDTH_MAX_MM).default(0),
+      startMm: mm(0, STAMP_SIDE_MAX_MM + GAP_MAX_MM).default(0),
+    },
+    keyed,
+  )
+  .superRefine((b, ctx) => {
+    const laidHeight = b.turn === 90 || b.turn === 270 ? b.stamp.widthMm : b.stamp.heightMm;
+    const minGap = -(laidHeight - MIN_STEP_MM);
+    if (b.gapYMm < minGap) {
+      ctx.addIssue({ code: "custom", path: ["gapYMm"], message: "validation.gapTooNegative", params: { min: minGap } });
+    } else if (b.startMm >= laidHeight + b.gapYMm) {
+      const repeatMm = laidHeight + b.gapYMm;
+      ctx.addIssue({ code: "custom", path: ["startMm"], message: "layout.borderStartBeyondRepeat", params: { repeatMm } });
+    }
+    if (b.rightCopy !== undefined && b.side !== "both") {
+      ctx.addIssue({ code: "custom", path: ["rightCopy"], message: "layout.rightCopyNeedsBoth" });
+    }
+  });
+
+export type BorderInput = z.input<typeof borderSchema>;
+export type BorderSpec = z.output<typeof borderSchema>;
+
+/** Up to one border on each edge: `both`, or `left` and `right` (with stamps of their own). */
+const bordersSchema = z
+  .array(borderSchema, keyed)
+  .max(2, keyed)
+  .superRefine((borders, ctx) => {
+    const taken = new Set<string>();
+    borders.forEach((b, k) => {
+      const edges = b.side === "both" ? ["left", "right"] : [b.side];
+      if (edges.some((e) => taken.has(e))) {
+        ctx.addIssue({ code: "custom", path: [k, "side"], message: "layout.borderSideTwice" });
+      }
+      for (const e of edges) taken.add(e);
+    });
+  })
+  .default([]);
+
 /** The fields of a layout other than the stamp; the API body adds a library stamp by code. */
 export const layoutShape = {
   cloth: clothSchema,
@@ -148,6 +211,8 @@ export const layoutShape = {
   impressions: z.boolean(keyed).default(false),
   /** Ask for an SVG preview of the window. */
   preview: z.boolean(keyed).default(false),
+  /** Border layers along the band's edges (see borderSchema); they narrow the field band. */
+  borders: bordersSchema,
 };
 
 type ArrangementFields = {

@@ -45,10 +45,62 @@ export interface FitRow {
   current: boolean;
 }
 
+/** The layers of a layout: the field, and a border along each edge of the band when asked for. */
+export type LayerName = "field" | "border-left" | "border-right";
+
+/**
+ * One layer's own figures, all faces. Each layer's areas are the union of that layer's impressions alone, cut to
+ * its own band; where two layers overlap, the shared wax counts in both layers' figures and once in the layout's
+ * totals (see `LayoutResult.overlaps`), so Σ layers − Σ overlaps = the totals.
+ */
+export interface LayerResult {
+  layer: LayerName;
+  /** A border's index in the input's `borders`. */
+  border?: number;
+  /** A border's stamp as laid: turned clockwise by rotationDeg after being mirrored when `mirrored`. */
+  rotationDeg?: number;
+  mirrored?: boolean;
+  /** The layer's band on the cloth, mm from the left selvedge: the field band, or the strip a border takes. */
+  bandMm: { x0: number; x1: number };
+  /** Whole impressions across (the largest row); 1 for a border. */
+  across: number;
+  /** Length after which the layer repeats down the cloth, mm. */
+  periodMm: number;
+  impressionsPerMetre: number;
+  impressionsTotal: number;
+  impressionsWholeTotal: number;
+  impressionsClippedTotal: number;
+  waxedAreaPerMetreM2: number;
+  waxedAreaTotalM2: number;
+  /** Long-run waxed fraction of the layer's own band on one face, 0–1. */
+  coverageOfBand: number;
+  /** Waxed area of one impression, mm² (coverage applied). */
+  impressionAreaMm2: number;
+  /** Band left between the layer's band edges and its nearest impressions, mm. */
+  leftover: Leftover;
+}
+
+/**
+ * Wax two layers share (the field reaching under a border with a negative gap to the field), all faces.
+ * Exact over the two layers' common period when they have one of at most OVERLAP_PERIOD_MAX_MM; otherwise
+ * `exact` is false and the per-metre figure is the average over `windowMm` of cloth.
+ */
+export interface LayerOverlap {
+  layers: [LayerName, LayerName];
+  /** Where the two bands meet, mm from the left selvedge. */
+  acrossMm: { x0: number; x1: number };
+  perMetreM2: number;
+  pieceM2: number;
+  periodMm: number | null;
+  windowMm: number;
+  exact: boolean;
+}
+
 /** One impression in the requested window, with the map from stamp to cloth coordinates. */
 export interface Impression {
+  layer: LayerName;
   face: "front" | "back";
-  /** Row type and the running row number from the start of the piece (0-based; negative for rows cut at the head). */
+  /** Row type and the running row number from the start of the piece (0-based; negative for rows cut at the head); a border's row is its impression's number down the strip. */
   row: number;
   rowIndex: number;
   /** Footprint box on the cloth, mm (x from the left selvedge of this face, y from the start of the piece). */
@@ -64,7 +116,13 @@ export interface Impression {
   whole: boolean;
 }
 
-/** Result of `computeLayout`. The first block is the answer of POST /api/v1/layout (SPEC section 6). */
+/**
+ * Result of `computeLayout`. The first block is the answer of POST /api/v1/layout (SPEC section 6). The totals
+ * (impressions, whole and cut impressions, waxed areas, coverage of the band) take every layer, the field and its
+ * borders, with wax the layers share counted once; `leftover` is the band between each margin line and the nearest
+ * impression of any layer. `across`, `rowsPerMetre`, `rows`, `cell`, `periodMm`, `group`, `fitTable`,
+ * `impressionAreaMm2` and `partialAreaPerMetreM2` describe the field, laid on the field band.
+ */
 export interface LayoutResult {
   across: number;
   rowsPerMetre: number;
@@ -76,12 +134,18 @@ export interface LayoutResult {
   group: PlaneGroup;
   /** SVG markup of the window, when asked for. */
   preview?: string;
+  /** Per-layer figures: the field first, then the left and the right border. */
+  layers: LayerResult[];
+  /** Wax shared between layers (empty unless the field reaches under a border). */
+  overlaps: LayerOverlap[];
 
   arrangement: Arrangement;
   pathName: PathName | null;
   edges: "whole" | "clip";
   sides: 1 | 2;
+  /** Band between the margins, and the field band left between the borders (the whole band without borders). */
   bandWidthMm: number;
+  fieldBandMm: { x0: number; x1: number };
   /** Run length (pieces × piece length when given by pieces), and the length the layout restarts on. */
   runLengthMm: number;
   pieces: number;

@@ -13,8 +13,17 @@ type Path = (string | number)[];
  * coerced values (query strings and form fields arrive as text), with their paths.
  */
 function textLeaves(schema: z.ZodType, path: Path = [], seen = new Set<z.ZodType>()): Path[] {
+  // `seen` holds the schemas on the way down only (a guard against cycles): one schema may sit at two places.
   if (seen.has(schema)) return [];
   seen.add(schema);
+  try {
+    return leavesOf(schema, path, seen);
+  } finally {
+    seen.delete(schema);
+  }
+}
+
+function leavesOf(schema: z.ZodType, path: Path, seen: Set<z.ZodType>): Path[] {
   const def = schema._zod.def as unknown as Record<string, unknown> & { type: string };
   const inner = (key: string, at: Path = path) => textLeaves(def[key] as z.ZodType, at, seen);
   switch (def.type) {

@@ -39,7 +39,7 @@ const rules: { rule: string; refused: Case[]; allowed: Case[] }[] = [
       ["lib/wax/sample.ts", `import { db } from "@/db"; export const d = db;`],
       ["lib/units.ts", `import { stamps } from "@/db/schema"; export const t = stamps;`],
       ["lib/stamps/sample.ts", `import type { StampDto } from "@/lib/data/stamps"; export type S = StampDto;`],
-      ["lib/stamps/sample.ts", `import { listLocations } from "../data/locations"; export const l = listLocations;`],
+      ["lib/stamps/sample.ts", `import { listLocations } from "../data/stamps/locations"; export const l = listLocations;`],
       ["lib/layout/sample.ts", `export async function rows() { return import("../../db/schema"); }`],
     ],
     allowed: [
@@ -60,7 +60,7 @@ const rules: { rule: string; refused: Case[]; allowed: Case[] }[] = [
     refused: [
       ["components/stamps/sample.tsx", `import type { StampEventDto } from "@/lib/data/stamps"; export type E = StampEventDto;`],
       ["components/scans/sample.tsx", `import { listScans } from "@/lib/data/scans"; export const l = listScans;`],
-      ["components/ui/sample.tsx", `import { listLocations } from "../../lib/data/locations"; export const l = listLocations;`],
+      ["components/ui/sample.tsx", `import { listLocations } from "../../lib/data/stamps/locations"; export const l = listLocations;`],
     ],
     allowed: [["components/stamps/sample.tsx", `import { useStamps } from "@/lib/swr/use-stamps"; export const u = useStamps;`]],
   },

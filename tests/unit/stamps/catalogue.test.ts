@@ -15,7 +15,7 @@ function files(dir: string): string[] {
 
 // The stamp shelf names its texts with whole keys (t("stamps.table.count")); each must exist.
 describe("stamp shelf texts", () => {
-  const sources = [...files("app/(app)/stamps"), ...files("components/stamps"), "lib/data/stamp-mail.ts", "lib/emails/templates.ts"];
+  const sources = [...files("app/(app)/stamps"), ...files("components/stamps"), ...files("lib/data/stamps"), "lib/emails/templates.ts"];
 
   it("has every key the pages, forms and e-mails name", () => {
     const keys = new Set<string>();
