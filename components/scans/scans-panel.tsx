@@ -170,7 +170,7 @@ function ScanCard({ scan, canWrite, unitSystem, onView, onReview, onDeleted }: {
           </div>
         )}
         <div>{t("card.coverage", { ratio: scan.coverageRatio })}</div>
-        <div className="text-stone-500">{t("card.uploaded", { name: scan.uploadedByName, when: format.dateTime(new Date(scan.createdAt), { dateStyle: "medium", timeStyle: "short" }) })}</div>
+        <div className="text-stone-500">{t("card.uploaded", { name: scan.uploadedByName, when: format.dateTime(new Date(scan.createdAt), "moment") })}</div>
         <div className="flex flex-wrap gap-x-3 gap-y-1 pt-1">
           <button type="button" className="text-ink-700 hover:underline" onClick={onView}>
             {t("card.view")}

@@ -4,6 +4,7 @@ import type { StampEventDto } from "@/lib/contracts/stamps";
 import { damageKinds, stampConditions, stampFaces } from "@/lib/validation/stamps";
 import type { UnitSystem } from "@/lib/stamps/format";
 import { lengthText, massText } from "./measure";
+import { calendarDay } from "@/lib/i18n/formats";
 
 const dots: Record<string, string> = {
   created: "bg-ink-600",
@@ -43,7 +44,7 @@ export async function StampHistory({ events, unitSystem }: { events: StampEventD
     if (field === "outlinePath") return t("stamps.history.outline");
     return String(v);
   };
-  const date = (iso: string) => format.dateTime(new Date(`${iso}T00:00:00Z`), { dateStyle: "medium", timeZone: "UTC" });
+  const date = (iso: string) => format.dateTime(calendarDay(iso), "day");
 
   function describe(e: StampEventDto): { text: string; extra?: string[] } {
     const d = e.details ?? {};
@@ -107,7 +108,7 @@ export async function StampHistory({ events, unitSystem }: { events: StampEventD
             ) : null}
             {e.note ? <p className="mt-0.5 text-xs italic text-stone-600">“{e.note}”</p> : null}
             <p className="mt-0.5 text-xs text-stone-500">
-              <time dateTime={e.at}>{format.dateTime(new Date(e.at), { dateStyle: "medium", timeStyle: "short" })}</time>
+              <time dateTime={e.at}>{format.dateTime(new Date(e.at), "moment")}</time>
             </p>
           </li>
         );

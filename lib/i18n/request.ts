@@ -4,6 +4,7 @@ import { getRequestConfig } from "next-intl/server";
 import { workshopTimeZone } from "@/lib/data/settings";
 import { defaultTimeZone } from "@/lib/validation/settings";
 import { localeCookie, pickLocale } from "./config";
+import { dateTimeFormats } from "./formats";
 import { messagesFor } from "./messages";
 
 /** The workshop's time zone (admin settings); the default one if the settings cannot be read, so pages still render. */
@@ -25,5 +26,5 @@ export default getRequestConfig(async () => {
   const fromBrowser = (await headers()).get("accept-language")?.split(",")[0]?.split("-")[0];
   const locale = pickLocale(fromCookie ?? fromBrowser);
   // `now` too: relative times ("5 seconds ago") then read the same on the server and while the page hydrates.
-  return { locale, messages: messagesFor(locale) as AbstractIntlMessages, timeZone: await timeZone(), now: new Date() };
+  return { locale, messages: messagesFor(locale) as AbstractIntlMessages, timeZone: await timeZone(), now: new Date(), formats: { dateTime: dateTimeFormats } };
 });

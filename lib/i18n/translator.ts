@@ -1,6 +1,7 @@
 import { createFormatter, createTranslator, type AbstractIntlMessages } from "next-intl";
 import { type Locale, defaultLocale } from "./config";
 import { messagesFor } from "./messages";
+import { calendarDay, dateTimeFormats } from "./formats";
 
 type Values = Record<string, string | number | Date>;
 
@@ -27,10 +28,10 @@ export interface DateFormat {
 }
 
 export function dateFormat(locale: Locale, timeZone: string): DateFormat {
-  const format = createFormatter({ locale, timeZone });
+  const format = createFormatter({ locale, timeZone, formats: { dateTime: dateTimeFormats } });
   return {
     timeZone,
-    instant: (at) => format.dateTime(at, { dateStyle: "medium", timeStyle: "short" }),
-    day: (iso) => format.dateTime(new Date(`${iso}T00:00:00Z`), { dateStyle: "medium", timeZone: "UTC" }),
+    instant: (at) => format.dateTime(at, "moment"),
+    day: (iso) => format.dateTime(calendarDay(iso), "day"),
   };
 }

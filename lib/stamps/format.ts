@@ -32,3 +32,10 @@ export function massInput(g: number | null | undefined, system: UnitSystem): str
   if (g === null || g === undefined) return "";
   return system === "imperial" ? String(Number(gramsToOunces(g).toFixed(2))) : String(g);
 }
+
+/** A location as people read it: "site · code" (history entries, pickers, labels and the record). */
+export function locationLabel(location: { site: string; code: string }): string;
+export function locationLabel(location: { site: string; code: string } | null | undefined): string | null;
+export function locationLabel(location: { site: string; code: string } | null | undefined): string | null {
+  return location ? `${location.site} · ${location.code}` : null;
+}

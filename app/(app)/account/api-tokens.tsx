@@ -98,7 +98,7 @@ export function ApiTokens() {
               <div>
                 <p className="font-medium text-stone-900">{token.name}</p>
                 <p className="text-xs text-stone-500">
-                  {t("prefix")} <code>{token.prefix}…</code> · {t("created")} {format.dateTime(new Date(token.createdAt), { dateStyle: "medium" })} · {t("lastUsed")}{" "}
+                  {t("prefix")} <code>{token.prefix}…</code> · {t("created")} {format.dateTime(new Date(token.createdAt), "date")} · {t("lastUsed")}{" "}
                   {token.lastUsedAt ? format.relativeTime(new Date(token.lastUsedAt), now) : t("never")}
                 </p>
               </div>

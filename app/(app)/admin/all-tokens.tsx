@@ -47,10 +47,10 @@ export function AllTokens({ tokens }: { tokens: OwnedApiTokenDto[] }) {
                       {token.owner.disabled ? ` · ${t("ownerDisabled")}` : ""}
                     </span>
                   </td>
-                  <td className="px-3 py-2 whitespace-nowrap">{format.dateTime(new Date(token.createdAt), { dateStyle: "medium", timeStyle: "short" })}</td>
+                  <td className="px-3 py-2 whitespace-nowrap">{format.dateTime(new Date(token.createdAt), "moment")}</td>
                   <td className="px-3 py-2 whitespace-nowrap">
                     {token.lastUsedAt ? (
-                      <time dateTime={token.lastUsedAt} title={format.dateTime(new Date(token.lastUsedAt), { dateStyle: "medium", timeStyle: "short" })}>
+                      <time dateTime={token.lastUsedAt} title={format.dateTime(new Date(token.lastUsedAt), "moment")}>
                         {format.relativeTime(new Date(token.lastUsedAt), now)}
                       </time>
                     ) : (

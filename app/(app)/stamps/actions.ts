@@ -7,7 +7,7 @@ import { z } from "@/lib/zod";
 import type { FormState } from "@/lib/actions/form-state";
 import { runForm } from "@/lib/actions/run-form";
 import { createLocation, deleteLocation, updateLocation } from "@/lib/data/stamps/locations";
-import { locationLabel } from "@/lib/data/stamps/events";
+import { locationLabel } from "@/lib/stamps/format";
 import { sendOverdueReminders } from "@/lib/data/stamps/mail";
 import { AppError } from "@/lib/errors";
 import { changeCondition, checkOutStamp, createStamp, deleteStamp, reportDamage, returnStamp, updateStamp } from "@/lib/data/stamps";

@@ -31,6 +31,8 @@ import { ApiError } from "@/lib/swr/fetcher";
 import { useStamps } from "@/lib/swr/use-stamps";
 import { inchesToMm, mmToInches } from "@/lib/units";
 import { stampConditions } from "@/lib/validation/stamps";
+import { calendarDay } from "@/lib/i18n/formats";
+import { locationLabel } from "@/lib/stamps/format";
 
 const features = tableFeatures({ rowSortingFeature, columnVisibilityFeature, rowPaginationFeature });
 const column = createColumnHelper<typeof features, StampListItem>();
@@ -228,7 +230,7 @@ export function StampsTable({
               <span className="flex flex-col gap-0.5">
                 <OutBadge overdue={c.overdue} label={c.overdue ? t("stamps.table.overdue") : t("stamps.table.out")} />
                 <span className="text-xs text-stone-600">
-                  {t("stamps.table.outTo", { name: c.borrowerName, due: format.dateTime(new Date(`${c.dueOn}T00:00:00Z`), { dateStyle: "medium", timeZone: "UTC" }) })}
+                  {t("stamps.table.outTo", { name: c.borrowerName, due: format.dateTime(calendarDay(c.dueOn), "day") })}
                 </span>
               </span>
             );
@@ -238,7 +240,7 @@ export function StampsTable({
         column.accessor((row) => row.madeOn ?? "", {
           id: "madeOn",
           header: () => t("stamps.columns.madeOn"),
-          cell: ({ row }) => (row.original.madeOn ? format.dateTime(new Date(`${row.original.madeOn}T00:00:00Z`), { dateStyle: "medium", timeZone: "UTC" }) : ""),
+          cell: ({ row }) => (row.original.madeOn ? format.dateTime(calendarDay(row.original.madeOn), "day") : ""),
         }),
         column.accessor((row) => row.tags.join(" "), {
           id: "tags",
@@ -275,7 +277,7 @@ export function StampsTable({
         column.accessor("updatedAt", {
           id: "updated",
           header: () => t("stamps.columns.updated"),
-          cell: (info) => format.dateTime(new Date(info.getValue()), { dateStyle: "medium" }),
+          cell: (info) => format.dateTime(new Date(info.getValue()), "date"),
         }),
       ]),
     [t, format, unitSystem],
@@ -382,7 +384,7 @@ export function StampsTable({
               .filter((l) => !site || l.site === site)
               .map((l) => (
                 <option key={l.id} value={l.id}>
-                  {l.site} · {l.code}
+                  {locationLabel(l)}
                 </option>
               ))}
           </select>

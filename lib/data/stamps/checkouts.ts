@@ -7,7 +7,8 @@ import { AppError } from "@/lib/errors";
 import { canBeCheckedOut } from "@/lib/stamps/condition";
 import type { CheckoutInput, ReturnInput } from "@/lib/validation/stamps";
 import { workshopToday } from "../settings";
-import { isUniqueViolation, locationLabel, recordEvent } from "./events";
+import { locationLabel } from "@/lib/stamps/format";
+import { isUniqueViolation, recordEvent } from "./events";
 import type { OpenCheckoutDto } from "@/lib/contracts/stamps";
 import { bump, findStamp, locationOrFail, openCheckoutOf, toCheckoutDto, toLocationRef } from "./shared";
 

@@ -8,7 +8,8 @@ import { type Condition } from "@/lib/stamps/condition";
 import type { CreateStampInput, UpdateStampInput } from "@/lib/validation/stamps";
 import { deleteObjects } from "@/lib/s3";
 import { scanObjectKeys } from "../scans";
-import { isUniqueViolation, locationLabel, recordEvent } from "./events";
+import { locationLabel } from "@/lib/stamps/format";
+import { isUniqueViolation, recordEvent } from "./events";
 import { bump, findStamp, locationOrFail, openCheckoutOf } from "./shared";
 import { checkConditionChange, recordConditionChange } from "./condition";
 

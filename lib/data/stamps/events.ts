@@ -40,4 +40,3 @@ export async function recordEvent(tx: Transaction | Database, stampId: string, a
   });
 }
 
-export const locationLabel = (l: { site: string; code: string } | null | undefined) => (l ? `${l.site} · ${l.code}` : null);

@@ -6,7 +6,8 @@ import { assertCan, type Actor } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
 import { codeFromScan } from "@/lib/stamps/codes";
 import { relocations, stockTakeReport, type ExpectedStamp } from "@/lib/stamps/stock-take";
-import { isUniqueViolation, locationLabel } from "./events";
+import { locationLabel } from "@/lib/stamps/format";
+import { isUniqueViolation } from "./events";
 import { updateStamp } from "./edit";
 import type { StockTakeDto, StockTakePlace, StockTakeSummary } from "@/lib/contracts/stamps";
 

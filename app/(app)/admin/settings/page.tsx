@@ -33,7 +33,7 @@ export default async function WorkshopSettingsPage() {
               {page.history.map((entry) => (
                 <li key={entry.id} className="border-b border-stone-100 pb-2 last:border-0">
                   <p className="text-stone-500">
-                    <time dateTime={entry.at}>{format.dateTime(new Date(entry.at), { dateStyle: "medium", timeStyle: "short" })}</time> · {entry.actorName}
+                    <time dateTime={entry.at}>{format.dateTime(new Date(entry.at), "moment")}</time> · {entry.actorName}
                   </p>
                   <ul>
                     {entry.changes.map((c) => (

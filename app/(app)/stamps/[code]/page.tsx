@@ -22,6 +22,8 @@ import { nextConditions } from "@/lib/stamps/condition";
 import { stampCodeSchema } from "@/lib/validation/stamps";
 import { CheckoutForm, ConditionForm, DamageForm, DeleteStamp, ReturnForm } from "./stamp-panels";
 import { ScansSection } from "./scans-section";
+import { calendarDay } from "@/lib/i18n/formats";
+import { locationLabel } from "@/lib/stamps/format";
 
 type Props = { params: Promise<{ code: string }>; searchParams: Promise<{ saved?: string }> };
 
@@ -55,7 +57,7 @@ export default async function StampPage({ params, searchParams }: Props) {
   ]);
   const units = actor.unitSystem;
   const none = <span className="text-stone-500">{t("stamps.record.notRecorded")}</span>;
-  const day = (iso: string) => format.dateTime(new Date(`${iso}T00:00:00Z`), { dateStyle: "medium", timeZone: "UTC" });
+  const day = (iso: string) => format.dateTime(calendarDay(iso), "day");
   const defaultDue = isoDateAfter(new Date(), 7);
   const checkout = stamp.checkout;
   const next = nextConditions(stamp.condition);
@@ -127,7 +129,7 @@ export default async function StampPage({ params, searchParams }: Props) {
           <span className="flex flex-wrap items-center gap-2">
             <ConditionBadge condition={stamp.condition} label={t(`stamps.conditions.${stamp.condition}`)} />
             {checkout ? <OutBadge overdue={checkout.overdue} label={checkout.overdue ? t("stamps.table.overdue") : t("stamps.table.out")} /> : null}
-            <span>{t("stamps.record.updated", { when: format.dateTime(new Date(stamp.updatedAt), { dateStyle: "medium", timeStyle: "short" }) })}</span>
+            <span>{t("stamps.record.updated", { when: format.dateTime(new Date(stamp.updatedAt), "moment") })}</span>
           </span>
         }
         actions={
@@ -154,7 +156,7 @@ export default async function StampPage({ params, searchParams }: Props) {
       ) : null}
       {saved === "returned" && !checkout ? (
         <Notice tone="success" className="mb-4">
-          {stamp.location ? t("stamps.record.saved.returnedTo", { place: `${stamp.location.site} · ${stamp.location.code}` }) : t("stamps.record.saved.returned")}
+          {stamp.location ? t("stamps.record.saved.returnedTo", { place: locationLabel(stamp.location) }) : t("stamps.record.saved.returned")}
         </Notice>
       ) : null}
 
@@ -207,7 +209,7 @@ export default async function StampPage({ params, searchParams }: Props) {
                   <dt className="text-stone-500">{t("stamps.checkout.workstation")}</dt>
                   <dd>{checkout.workstation}</dd>
                   <dt className="text-stone-500">{t("stamps.checkout.since")}</dt>
-                  <dd>{format.dateTime(new Date(checkout.outAt), { dateStyle: "medium", timeStyle: "short" })}</dd>
+                  <dd>{format.dateTime(new Date(checkout.outAt), "moment")}</dd>
                   <dt className="text-stone-500">{t("stamps.checkout.due")}</dt>
                   <dd className={checkout.overdue ? "font-medium text-red-700" : undefined}>
                     {day(checkout.dueOn)}
@@ -221,7 +223,7 @@ export default async function StampPage({ params, searchParams }: Props) {
                   ) : null}
                 </dl>
                 {canWrite ? (
-                  <ReturnForm code={stamp.code} currentLocationId={stamp.location?.id ?? null} locations={locations.map((l) => ({ id: l.id, label: `${l.site} · ${l.code}` }))} />
+                  <ReturnForm code={stamp.code} currentLocationId={stamp.location?.id ?? null} locations={locations.map((l) => ({ id: l.id, label: locationLabel(l) }))} />
                 ) : null}
               </div>
             ) : canWrite ? (
@@ -231,7 +233,7 @@ export default async function StampPage({ params, searchParams }: Props) {
                 <p className="text-sm text-stone-600">{t("stamps.record.cannotGoOut")}</p>
               )
             ) : (
-              <p className="text-sm text-stone-600">{stamp.location ? t("stamps.record.onShelfAt", { place: `${stamp.location.site} · ${stamp.location.code}` }) : t("stamps.record.onShelf")}</p>
+              <p className="text-sm text-stone-600">{stamp.location ? t("stamps.record.onShelfAt", { place: locationLabel(stamp.location) }) : t("stamps.record.onShelf")}</p>
             )}
           </Panel>
 
@@ -246,7 +248,7 @@ export default async function StampPage({ params, searchParams }: Props) {
                         <span className="font-medium">{t(`stamps.damageKinds.${d.kind}`)}</span>
                         {d.note ? ` — ${d.note}` : ""}
                         <span className="block text-xs text-red-800">
-                          {t("stamps.damage.reportedBy", { name: d.reportedByName ?? t("stamps.history.none"), when: format.dateTime(new Date(d.reportedAt), { dateStyle: "medium" }) })}
+                          {t("stamps.damage.reportedBy", { name: d.reportedByName ?? t("stamps.history.none"), when: format.dateTime(new Date(d.reportedAt), "date") })}
                         </span>
                       </li>
                     ))}

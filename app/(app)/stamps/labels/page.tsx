@@ -16,6 +16,7 @@ import { queryObject } from "@/lib/validation/common";
 import { stampCodeSchema, stampListQuerySchema } from "@/lib/validation/stamps";
 import { parseInput } from "@/lib/validation/parse";
 import { PrintButton } from "./print-button";
+import { locationLabel } from "@/lib/stamps/format";
 
 export async function generateMetadata(): Promise<Metadata> {
   return { title: (await getTranslations("labels"))("title") };
@@ -100,7 +101,7 @@ export default async function LabelsPage({ searchParams }: Props) {
               <p className="font-mono text-[13pt] font-bold text-stone-900">{s.code}</p>
               <p className="line-clamp-2 text-stone-800">{s.name}</p>
               <p className="text-stone-600">{sizeText(s.widthMm, s.heightMm, actor.unitSystem, format.number)}</p>
-              <p className="text-stone-600">{s.location ? `${s.location.site} · ${s.location.code}` : t("stamps.table.noLocation")}</p>
+              <p className="text-stone-600">{locationLabel(s.location) ?? t("stamps.table.noLocation")}</p>
             </div>
           </article>
         ))}

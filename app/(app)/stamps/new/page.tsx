@@ -7,6 +7,7 @@ import { listLocations } from "@/lib/data/stamps/locations";
 import { can } from "@/lib/permissions";
 import { requirePageActor } from "@/lib/session";
 import { createStampAction } from "../actions";
+import { locationLabel } from "@/lib/stamps/format";
 
 export async function generateMetadata(): Promise<Metadata> {
   return { title: (await getTranslations("stamps"))("form.newTitle") };
@@ -24,7 +25,7 @@ export default async function NewStampPage() {
           action={createStampAction}
           mode="create"
           unitSystem={actor.unitSystem}
-          locations={locations.map((l) => ({ id: l.id, label: `${l.site} · ${l.code}` }))}
+          locations={locations.map((l) => ({ id: l.id, label: locationLabel(l) }))}
           initial={{
             code: "",
             name: "",

@@ -9,6 +9,7 @@ import { listCheckouts } from "@/lib/data/stamps";
 import { can } from "@/lib/permissions";
 import { requirePageActor } from "@/lib/session";
 import { RemindersButton } from "./reminders-button";
+import { calendarDay } from "@/lib/i18n/formats";
 
 export async function generateMetadata(): Promise<Metadata> {
   return { title: (await getTranslations("overdue"))("title") };
@@ -26,7 +27,7 @@ export default async function OutPage() {
   const [t, format, out] = await Promise.all([getTranslations(), getFormatter(), listCheckouts(actor)]);
   const overdue = out.filter((c) => c.overdue);
   const { toRemind, recentlyReminded } = reminderCounts(overdue);
-  const day = (iso: string) => format.dateTime(new Date(`${iso}T00:00:00Z`), { dateStyle: "medium", timeZone: "UTC" });
+  const day = (iso: string) => format.dateTime(calendarDay(iso), "day");
   return (
     <>
       <PageHeader title={t("overdue.title")} intro={t("overdue.intro", { out: out.length, overdue: overdue.length })} />
@@ -66,14 +67,14 @@ export default async function OutPage() {
                     <span className="block text-xs text-stone-500">{c.borrowerEmail ?? t("overdue.noEmail")}</span>
                   </td>
                   <td className="px-3 py-2">{c.workstation}</td>
-                  <td className="px-3 py-2">{format.dateTime(new Date(c.outAt), { dateStyle: "medium" })}</td>
+                  <td className="px-3 py-2">{format.dateTime(new Date(c.outAt), "date")}</td>
                   <td className="px-3 py-2">
                     <span className="flex items-center gap-2">
                       {day(c.dueOn)}
                       {c.overdue ? <OutBadge overdue label={t("stamps.table.overdue")} /> : null}
                     </span>
                   </td>
-                  <td className="px-3 py-2 text-stone-600">{c.lastRemindedAt ? format.dateTime(new Date(c.lastRemindedAt), { dateStyle: "medium", timeStyle: "short" }) : "—"}</td>
+                  <td className="px-3 py-2 text-stone-600">{c.lastRemindedAt ? format.dateTime(new Date(c.lastRemindedAt), "moment") : "—"}</td>
                 </tr>
               ))}
             </tbody>

@@ -38,7 +38,7 @@ export default async function StockTakesPage() {
                       {s.site}
                     </Link>
                     <span className="ml-2 text-stone-600">
-                      {t("stockTake.startedBy", { name: s.startedByName ?? "—", when: format.dateTime(new Date(s.startedAt), { dateStyle: "medium", timeStyle: "short" }) })}
+                      {t("stockTake.startedBy", { name: s.startedByName ?? "—", when: format.dateTime(new Date(s.startedAt), "moment") })}
                     </span>
                   </div>
                   <span className={s.status === "open" ? "rounded-full bg-amber-100 px-2 py-0.5 text-xs font-medium text-amber-900" : "rounded-full bg-stone-200 px-2 py-0.5 text-xs font-medium text-stone-700"}>

@@ -11,6 +11,7 @@ import { can } from "@/lib/permissions";
 import { requirePageActor } from "@/lib/session";
 import { stampCodeSchema } from "@/lib/validation/stamps";
 import { updateStampAction } from "../../actions";
+import { locationLabel } from "@/lib/stamps/format";
 
 type Props = { params: Promise<{ code: string }> };
 
@@ -37,7 +38,7 @@ export default async function EditStampPage({ params }: Props) {
           action={updateStampAction}
           mode="edit"
           unitSystem={actor.unitSystem}
-          locations={locations.map((l) => ({ id: l.id, label: `${l.site} · ${l.code}` }))}
+          locations={locations.map((l) => ({ id: l.id, label: locationLabel(l) }))}
           initial={{ ...stamp, twinCode: stamp.twin?.code ?? null, locationId: stamp.location?.id ?? null }}
         />
       </Panel>

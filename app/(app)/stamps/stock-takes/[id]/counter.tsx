@@ -119,7 +119,7 @@ export function StockTakeCounter({ initial, canWrite }: { initial: StockTakeDto;
     <>
       <PageHeader
         title={t("stockTake.countAt", { site: take.site })}
-        intro={t("stockTake.startedBy", { name: take.startedByName ?? "—", when: format.dateTime(new Date(take.startedAt), { dateStyle: "medium", timeStyle: "short" }) })}
+        intro={t("stockTake.startedBy", { name: take.startedByName ?? "—", when: format.dateTime(new Date(take.startedAt), "moment") })}
         actions={
           <Link href="/stamps/stock-takes" className="text-sm text-ink-700 hover:underline">
             {t("stockTake.allCounts")}
@@ -141,7 +141,7 @@ export function StockTakeCounter({ initial, canWrite }: { initial: StockTakeDto;
             <p className="mt-2 text-sm text-stone-600">
               {t("stockTake.summary", { missing: take.missing.length, misplaced: take.misplaced.length, unexpected: take.unexpected.length, out: take.checkedOut.length })}
             </p>
-            {!open ? <Notice className="mt-3">{t("stockTake.closedOn", { when: format.dateTime(new Date(take.endedAt!), { dateStyle: "medium", timeStyle: "short" }) })}</Notice> : null}
+            {!open ? <Notice className="mt-3">{t("stockTake.closedOn", { when: format.dateTime(new Date(take.endedAt!), "moment") })}</Notice> : null}
           </Panel>
 
           {open && canWrite ? (
