@@ -1,6 +1,6 @@
 "use client";
 
-import { useEffect, useRef, useState } from "react";
+import { useState } from "react";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useFormatter, useTranslations } from "next-intl";
@@ -13,6 +13,7 @@ import { ApiError, apiFetch } from "@/lib/swr/fetcher";
 import { useScans, useSimilarStamps, type ScansAnswer } from "@/lib/swr/use-scans";
 import { CoverageReview } from "./coverage-review";
 import { ScanUploader } from "./scan-uploader";
+import { Modal } from "@/components/ui/modal";
 
 interface Props {
   code: string;
@@ -200,22 +201,13 @@ function ScanCard({ scan, canWrite, unitSystem, onView, onReview, onDeleted }: {
 /** The large view in a modal dialog (Escape closes it). */
 function ScanViewer({ scan, code, onClose }: { scan: ScanDto | null; code: string; onClose: () => void }) {
   const t = useTranslations("scans.viewer");
-  const dialog = useRef<HTMLDialogElement>(null);
-  useEffect(() => {
-    if (scan && dialog.current && !dialog.current.open) dialog.current.showModal();
-  }, [scan]);
   return (
-    <dialog
-      ref={dialog}
-      onClose={onClose}
-      className="m-auto max-h-[95vh] max-w-[95vw] rounded-lg p-0 backdrop:bg-stone-900/70"
-      data-testid="scan-viewer"
-    >
+    <Modal open={scan !== null} onClose={onClose} className="max-h-[95vh] max-w-[95vw] backdrop:bg-stone-900/70" data-testid="scan-viewer">
       {scan ? (
         <div className="flex flex-col">
           <div className="flex items-center justify-between gap-4 border-b border-stone-200 px-4 py-2 text-sm">
             <span className="truncate font-medium">{t("title", { fileName: scan.fileName })}</span>
-            <Button type="button" variant="secondary" className="px-2 py-1 text-xs" onClick={() => dialog.current?.close()}>
+            <Button type="button" variant="secondary" className="px-2 py-1 text-xs" onClick={onClose}>
               {t("close")}
             </Button>
           </div>
@@ -223,6 +215,6 @@ function ScanViewer({ scan, code, onClose }: { scan: ScanDto | null; code: strin
           <img src={scan.urls.large} alt={t("alt", { fileName: scan.fileName, code })} className="max-h-[85vh] max-w-[90vw] object-contain" />
         </div>
       ) : null}
-    </dialog>
+    </Modal>
   );
 }

@@ -10,6 +10,7 @@ import { initialFormState, type FormState } from "@/lib/actions/form-state";
 import { ratioToPercent } from "@/lib/stamps/coverage";
 import { lengthInput, massInput, type UnitSystem } from "@/lib/stamps/format";
 import { stampConditions } from "@/lib/validation/stamps";
+import { Select } from "@/components/ui/select";
 
 export interface StampFormValues {
   code: string;
@@ -134,26 +135,13 @@ export function StampForm({
         <legend className="mb-2 text-sm font-semibold text-stone-900">{t("stamps.form.placeAndState")}</legend>
         <Field id="stamp-location" label={t("stamps.fields.location")} errors={e.locationId}>
           {(aria) => (
-            <select {...aria} key={v("locationId", initial.locationId ?? "")} name="locationId" defaultValue={v("locationId", initial.locationId ?? "")}>
-              <option value="">{t("stamps.form.noLocation")}</option>
-              {locations.map((l) => (
-                <option key={l.id} value={l.id}>
-                  {l.label}
-                </option>
-              ))}
-            </select>
+            <Select {...aria} name="locationId" defaultValue={v("locationId", initial.locationId ?? "")} emptyOption={t("stamps.form.noLocation")} options={locations.map((l) => ({ value: l.id, label: l.label }))} />
           )}
         </Field>
         {mode === "create" ? (
           <Field id="stamp-condition" label={t("stamps.fields.condition")} errors={e.condition}>
             {(aria) => (
-              <select {...aria} key={v("condition", initial.condition)} name="condition" defaultValue={v("condition", initial.condition)}>
-                {stampConditions.map((c) => (
-                  <option key={c} value={c}>
-                    {t(`stamps.conditions.${c}`)}
-                  </option>
-                ))}
-              </select>
+              <Select {...aria} name="condition" defaultValue={v("condition", initial.condition)} options={stampConditions.map((c) => ({ value: c, label: t(`stamps.conditions.${c}`) }))} />
             )}
           </Field>
         ) : (

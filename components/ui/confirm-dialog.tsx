@@ -1,7 +1,8 @@
 "use client";
 
-import { useEffect, useId, useRef } from "react";
+import { useId } from "react";
 import { Button } from "./button";
+import { Modal } from "./modal";
 
 export interface ConfirmRequest {
   title: string;
@@ -15,26 +16,10 @@ export interface ConfirmRequest {
  * cancels). Open while `request` is set; answers through onConfirm or onCancel.
  */
 export function ConfirmDialog({ request, cancelLabel, onConfirm, onCancel }: { request: ConfirmRequest | null; cancelLabel: string; onConfirm: () => void; onCancel: () => void }) {
-  const dialog = useRef<HTMLDialogElement>(null);
   const titleId = useId();
   const bodyId = useId();
-  useEffect(() => {
-    const d = dialog.current;
-    if (!d) return;
-    if (request && !d.open) d.showModal();
-    if (!request && d.open) d.close();
-  }, [request]);
   return (
-    <dialog
-      ref={dialog}
-      aria-labelledby={titleId}
-      aria-describedby={bodyId}
-      onCancel={(e) => {
-        e.preventDefault();
-        onCancel();
-      }}
-      className="m-auto w-full max-w-md rounded-lg p-0 shadow-xl backdrop:bg-stone-900/50"
-    >
+    <Modal open={request !== null} onClose={onCancel} labelledBy={titleId} describedBy={bodyId} className="w-full max-w-md">
       {request ? (
         <div className="space-y-3 p-5">
           <h2 id={titleId} className="text-base font-semibold text-stone-900">
@@ -53,6 +38,6 @@ export function ConfirmDialog({ request, cancelLabel, onConfirm, onCancel }: { r
           </div>
         </div>
       ) : null}
-    </dialog>
+    </Modal>
   );
 }

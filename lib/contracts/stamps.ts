@@ -2,6 +2,8 @@
 // URLs of its routes. Neither server-only nor React: server code, client components, SWR hooks and
 // tests all import it (never lib/data, which is server-only).
 import type { DamageKind, StampCondition, StampEventKind, StampFace } from "@/db/schema";
+import { inchesToMm, ouncesToGrams } from "@/lib/units";
+import { formChecked, formNumber, formOptional, formText } from "./form-input";
 
 export interface LocationRef {
   id: string;
@@ -169,3 +171,61 @@ export const stampUrls = {
   sightings: (id: string) => `/api/v1/stock-takes/${enc(id)}/sightings`,
   sighting: (id: string, code: string) => `/api/v1/stock-takes/${enc(id)}/sightings/${enc(code)}`,
 };
+
+// --- form input: the shelf's forms → their schemas' input (lengths in mm, masses in g, coverage as a ratio) ---
+
+/** The stamp form in the person's units (hidden field unitSystem) → createStampSchema / updateStampSchema input. */
+export function stampFormInput(form: FormData, mode: "create" | "update"): Record<string, unknown> {
+  const imperial = formText(form, "unitSystem") === "imperial";
+  const convert = (value: number | null, toMetric: (v: number) => number) => (value === null || Number.isNaN(value) || !imperial ? value : toMetric(value));
+  const required = (value: number | null) => value ?? undefined;
+  const pct = formNumber(form, "coveragePct");
+  const input: Record<string, unknown> = {
+    code: formText(form, "code"),
+    name: formText(form, "name"),
+    widthMm: required(convert(formNumber(form, "widthMm"), inchesToMm)),
+    heightMm: required(convert(formNumber(form, "heightMm"), inchesToMm)),
+    stripDepthMm: convert(formNumber(form, "stripDepthMm"), inchesToMm),
+    weightG: convert(formNumber(form, "weightG"), ouncesToGrams),
+    face: formOptional(form, "face"),
+    mirrored: formChecked(form, "mirrored"),
+    twinCode: formText(form, "twinCode").trim() || null,
+    maker: formText(form, "maker"),
+    madeOn: formText(form, "madeOn").trim() || null,
+    locationId: formText(form, "locationId") || null,
+    // The form takes %, the schema a ratio 0–1.
+    coverageRatio: form.get("coveragePct") !== null ? (pct === null || Number.isNaN(pct) ? pct : pct / 100) : undefined,
+    outlinePath: formText(form, "outlinePath").trim() || null,
+    impressionsCount: required(formNumber(form, "impressionsCount")) ?? 0,
+    notes: formText(form, "notes"),
+    tags: formText(form, "tags")
+      .split(",")
+      .map((s) => s.trim())
+      .filter(Boolean),
+  };
+  if (mode === "create") input.condition = formOptional(form, "condition");
+  else input.version = Number(formText(form, "version"));
+  return input;
+}
+
+/** The check-out form: a person with an account ("borrowerId"), or "other" and a typed name and e-mail. */
+export function checkoutFormInput(form: FormData) {
+  const who = formText(form, "borrowerId");
+  const someoneElse = who === "other" || !who;
+  return {
+    borrowerId: someoneElse ? undefined : who,
+    borrowerName: someoneElse ? formText(form, "borrowerName") : undefined,
+    borrowerEmail: someoneElse ? formText(form, "borrowerEmail") : undefined,
+    workstation: formText(form, "workstation"),
+    dueOn: formText(form, "dueOn"),
+    note: formText(form, "note"),
+  };
+}
+
+/** The return form: where it goes back (empty: its recorded place) and impressions made while out. */
+export function returnFormInput(form: FormData) {
+  return { note: formText(form, "note"), locationId: formOptional(form, "locationId") ?? null, impressions: formNumber(form, "impressions") ?? undefined };
+}
+
+export const damageFormInput = (form: FormData) => ({ kind: formOptional(form, "kind"), note: formText(form, "note") });
+export const conditionFormInput = (form: FormData) => ({ condition: formOptional(form, "condition"), note: formText(form, "note") });

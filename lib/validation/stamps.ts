@@ -159,6 +159,9 @@ export const stampListQuerySchema = z
 
 export type StampListQuery = z.output<typeof stampListQuerySchema>;
 
+/** The list query's filters (all but sort and page): the table keeps exactly these in the address. */
+export const stampFilterKeys = Object.keys(stampListQuerySchema.shape).filter((key) => !["sort", "page", "pageSize"].includes(key)) as (keyof StampListQuery)[];
+
 
 // --- locations -----------------------------------------------------------------------------
 

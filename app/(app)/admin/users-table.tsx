@@ -1,26 +1,13 @@
 "use client";
 
-import {
-  columnFilteringFeature,
-  createColumnHelper,
-  createFilteredRowModel,
-  createSortedRowModel,
-  filterFn_includesString,
-  flexRender,
-  globalFilteringFeature,
-  rowSortingFeature,
-  sortFn_alphanumeric,
-  sortFn_text,
-  tableFeatures,
-  useTable,
-} from "@tanstack/react-table";
+import { columnFilteringFeature, createColumnHelper, createFilteredRowModel, createSortedRowModel, filterFn_includesString, globalFilteringFeature, rowSortingFeature, sortFn_alphanumeric, sortFn_text, tableFeatures, useTable } from "@tanstack/react-table";
 import { useTranslations } from "next-intl";
 import { useActionState, useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { cn } from "@/components/ui/cn";
 import { ConfirmDialog, type ConfirmRequest } from "@/components/ui/confirm-dialog";
 import { Notice } from "@/components/ui/notice";
-import { SortableTableHead } from "@/components/ui/sortable-table-head";
+import { DataTable } from "@/components/ui/data-table";
 import { initialFormState, type FormState } from "@/lib/actions/form-state";
 import type { UserDto } from "@/lib/contracts/people";
 import { roles, type Role } from "@/lib/permissions";
@@ -222,30 +209,13 @@ export function UsersTable({ users, selfId }: { users: UserDto[]; selfId: string
           setAsking(null);
         }}
       />
-      <div className="overflow-x-auto rounded-lg border border-stone-200 bg-white">
-        <table className="min-w-full divide-y divide-stone-200 text-sm">
-          <SortableTableHead headerGroups={table.getHeaderGroups()} />
-          <tbody className="divide-y divide-stone-100">
-            {rows.length === 0 ? (
-              <tr>
-                <td colSpan={columns.length} className="px-4 py-8 text-center text-stone-500">
-                  {t("admin.empty")}
-                </td>
-              </tr>
-            ) : (
-              rows.map((row) => (
-                <tr key={row.id} data-testid={`user-row-${row.original.email}`} className="hover:bg-stone-50">
-                  {row.getAllCells().map((cell) => (
-                    <td key={cell.id} className="px-4 py-2.5 align-middle text-stone-700">
-                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                    </td>
-                  ))}
-                </tr>
-              ))
-            )}
-          </tbody>
-        </table>
-      </div>
+      <DataTable
+        table={table}
+        label={t("admin.title")}
+        empty={t("admin.empty")}
+        rowProps={(u) => ({ "data-testid": `user-row-${u.email}` })}
+        cellClassName="px-4 py-2.5"
+      />
     </div>
   );
 }

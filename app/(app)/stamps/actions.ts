@@ -13,7 +13,8 @@ import { AppError } from "@/lib/errors";
 import { changeCondition, checkOutStamp, createStamp, deleteStamp, reportDamage, returnStamp, updateStamp } from "@/lib/data/stamps";
 import { requirePermission } from "@/lib/session";
 import { isLowCoverage, ratioToPercent } from "@/lib/stamps/coverage";
-import { inchesToMm, ouncesToGrams } from "@/lib/units";
+import { checkoutFormInput, conditionFormInput, damageFormInput, returnFormInput, stampFormInput } from "@/lib/contracts/stamps";
+import { formText } from "@/lib/contracts/form-input";
 import {
   checkoutSchema,
   conditionChangeSchema,
@@ -25,56 +26,6 @@ import {
   stampCodeSchema,
   updateStampSchema,
 } from "@/lib/validation/stamps";
-
-const text = (f: FormData, name: string) => {
-  const v = f.get(name);
-  return typeof v === "string" ? v : "";
-};
-
-/** A number field: empty → null, a decimal comma accepted, anything else NaN (the schema names it). */
-const number = (f: FormData, name: string) => {
-  const v = text(f, name).trim();
-  return v === "" ? null : Number(v.replace(",", "."));
-};
-
-/** The stamp form in the person's units (hidden field unitSystem) → the schema's mm and g. */
-function stampInput(f: FormData, mode: "create" | "update") {
-  const imperial = text(f, "unitSystem") === "imperial";
-  const length = (name: string) => {
-    const n = number(f, name);
-    return n === null || Number.isNaN(n) || !imperial ? n : inchesToMm(n);
-  };
-  const weight = number(f, "weightG");
-  const required = (v: number | null) => v ?? undefined;
-  const input: Record<string, unknown> = {
-    code: text(f, "code"),
-    name: text(f, "name"),
-    widthMm: required(length("widthMm")),
-    heightMm: required(length("heightMm")),
-    stripDepthMm: length("stripDepthMm"),
-    weightG: weight === null || Number.isNaN(weight) || !imperial ? weight : ouncesToGrams(weight),
-    face: text(f, "face") || undefined,
-    mirrored: f.get("mirrored") === "on",
-    twinCode: text(f, "twinCode").trim() || null,
-    maker: text(f, "maker"),
-    madeOn: text(f, "madeOn").trim() || null,
-    locationId: text(f, "locationId") || null,
-    coverageRatio: f.get("coveragePct") !== null ? (() => {
-      const pct = number(f, "coveragePct");
-      return pct === null || Number.isNaN(pct) ? pct : pct / 100;
-    })() : undefined,
-    outlinePath: text(f, "outlinePath").trim() || null,
-    impressionsCount: required(number(f, "impressionsCount")) ?? 0,
-    notes: text(f, "notes"),
-    tags: text(f, "tags")
-      .split(",")
-      .map((s) => s.trim())
-      .filter(Boolean),
-  };
-  if (mode === "create") input.condition = text(f, "condition") || undefined;
-  else input.version = Number(text(f, "version"));
-  return input;
-}
 
 /**
  * The form takes coverage in %, the schema a ratio: the percentage field's errors show under its own
@@ -118,7 +69,7 @@ export async function createStampAction(_prev: FormState, formData: FormData): P
       if (unconfirmed) return unconfirmed;
       code = (await createStamp(actor, input)).code;
     },
-    (f) => stampInput(f, "create"),
+    (f) => stampFormInput(f, "create"),
   );
   if (state.status === "success" && code) {
     revalidatePath("/stamps");
@@ -128,7 +79,7 @@ export async function createStampAction(_prev: FormState, formData: FormData): P
 }
 
 export async function updateStampAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  const original = stampCodeSchema.safeParse(text(formData, "originalCode"));
+  const original = stampCodeSchema.safeParse(formText(formData, "originalCode"));
   let code: string | undefined;
   let conflict = false;
   const state = await runForm(
@@ -146,7 +97,7 @@ export async function updateStampAction(_prev: FormState, formData: FormData): P
         throw error;
       }
     },
-    (f) => stampInput(f, "update"),
+    (f) => stampFormInput(f, "update"),
   );
   if (state.status === "success" && code) {
     revalidatePath("/stamps");
@@ -168,7 +119,7 @@ export async function deleteStampAction(_prev: FormState, formData: FormData): P
   });
   if (done) {
     revalidatePath("/stamps");
-    redirect(`/stamps?deleted=${encodeURIComponent(text(formData, "code").trim().toUpperCase())}`);
+    redirect(`/stamps?deleted=${encodeURIComponent(formText(formData, "code").trim().toUpperCase())}`);
   }
   return state;
 }
@@ -180,7 +131,7 @@ async function onStamp<S extends z.ZodType>(
   toInput: (f: FormData) => unknown,
   work: (code: string, input: z.output<S>) => Promise<string>,
 ): Promise<FormState> {
-  const code = stampCodeSchema.safeParse(text(formData, "code"));
+  const code = stampCodeSchema.safeParse(formText(formData, "code"));
   const state = await runForm(formData, schema, async (input) => {
     if (!code.success) return { status: "error", message: (await getTranslations())("errors.notFound") };
     return { status: "success", message: await work(code.data, input) };
@@ -189,11 +140,9 @@ async function onStamp<S extends z.ZodType>(
   return state;
 }
 
-const optional = (f: FormData, name: string) => text(f, name).trim() || undefined;
-
 /** After a check-out or return the record opens again with a note of what happened (who has it now, or where it went). */
 function showOnRecord(state: FormState, formData: FormData, saved: "checkedOut" | "returned"): FormState {
-  const code = stampCodeSchema.safeParse(text(formData, "code"));
+  const code = stampCodeSchema.safeParse(formText(formData, "code"));
   if (state.status === "success" && code.success) redirect(`/stamps/${encodeURIComponent(code.data)}?saved=${saved}`);
   return state;
 }
@@ -202,14 +151,7 @@ export async function checkoutAction(_prev: FormState, formData: FormData): Prom
   const state = await onStamp(
     formData,
     checkoutSchema,
-    (f) => ({
-      borrowerId: text(f, "borrowerId") && text(f, "borrowerId") !== "other" ? text(f, "borrowerId") : undefined,
-      borrowerName: text(f, "borrowerId") === "other" || !text(f, "borrowerId") ? text(f, "borrowerName") : undefined,
-      borrowerEmail: text(f, "borrowerId") === "other" || !text(f, "borrowerId") ? text(f, "borrowerEmail") : undefined,
-      workstation: text(f, "workstation"),
-      dueOn: text(f, "dueOn"),
-      note: text(f, "note"),
-    }),
+    checkoutFormInput,
     async (code, input) => {
       const actor = await requirePermission("stamps:write");
       const out = await checkOutStamp(actor, code, input);
@@ -223,10 +165,7 @@ export async function returnAction(_prev: FormState, formData: FormData): Promis
   const state = await onStamp(
     formData,
     returnSchema,
-    (f) => {
-      const impressions = number(f, "impressions");
-      return { note: text(f, "note"), locationId: optional(f, "locationId") ?? null, impressions: impressions ?? undefined };
-    },
+    returnFormInput,
     async (code, input) => {
       const actor = await requirePermission("stamps:write");
       await returnStamp(actor, code, input);
@@ -240,7 +179,7 @@ export async function reportDamageAction(_prev: FormState, formData: FormData): 
   return onStamp(
     formData,
     damageReportSchema,
-    (f) => ({ kind: text(f, "kind") || undefined, note: text(f, "note") }),
+    damageFormInput,
     async (code, input) => {
       const actor = await requirePermission("stamps:request");
       await reportDamage(actor, code, input);
@@ -253,7 +192,7 @@ export async function changeConditionAction(_prev: FormState, formData: FormData
   return onStamp(
     formData,
     conditionChangeSchema,
-    (f) => ({ condition: text(f, "condition") || undefined, note: text(f, "note") }),
+    conditionFormInput,
     async (code, input) => {
       const actor = await requirePermission("stamps:write");
       await changeCondition(actor, code, input);

@@ -9,6 +9,7 @@ import { initialFormState, type FormState } from "@/lib/actions/form-state";
 import { damageKinds } from "@/lib/validation/stamps";
 import { changeConditionAction, checkoutAction, deleteStampAction, reportDamageAction, returnAction } from "../actions";
 import type { StampConditionValue } from "@/lib/validation/stamps";
+import { Select } from "@/components/ui/select";
 
 const val = (state: FormState, name: string, fallback = "") => (state.status === "error" ? (state.values?.[name] ?? fallback) : fallback);
 
@@ -76,14 +77,7 @@ export function ReturnForm({ code, locations, currentLocationId }: { code: strin
       <div className="grid gap-3 sm:grid-cols-2">
         <Field id="return-location" label={t("stamps.return.location")} errors={state.fieldErrors?.locationId}>
           {(aria) => (
-            <select {...aria} key={val(state, "locationId", currentLocationId ?? "")} name="locationId" defaultValue={val(state, "locationId", currentLocationId ?? "")}>
-              <option value="">{t("stamps.return.sameLocation")}</option>
-              {locations.map((l) => (
-                <option key={l.id} value={l.id}>
-                  {l.label}
-                </option>
-              ))}
-            </select>
+            <Select {...aria} name="locationId" defaultValue={val(state, "locationId", currentLocationId ?? "")} emptyOption={t("stamps.return.sameLocation")} options={locations.map((l) => ({ value: l.id, label: l.label }))} />
           )}
         </Field>
         <Field id="return-impressions" label={t("stamps.return.impressions")} hint={t("stamps.return.impressionsHint")} errors={state.fieldErrors?.impressions}>
@@ -132,14 +126,7 @@ export function DamageForm({ code }: { code: string }) {
       <input type="hidden" name="code" value={code} />
       <Field id="damage-kind" label={t("stamps.damage.kind")} errors={state.fieldErrors?.kind}>
         {(aria) => (
-          <select {...aria} key={val(state, "kind")} name="kind" defaultValue={val(state, "kind")}>
-            <option value="">{t("stamps.damage.choose")}</option>
-            {damageKinds.map((k) => (
-              <option key={k} value={k}>
-                {t(`stamps.damageKinds.${k}`)}
-              </option>
-            ))}
-          </select>
+          <Select {...aria} name="kind" defaultValue={val(state, "kind")} emptyOption={t("stamps.damage.choose")} options={damageKinds.map((k) => ({ value: k, label: t(`stamps.damageKinds.${k}`) }))} />
         )}
       </Field>
       <Field id="damage-note" label={t("stamps.damage.note")} hint={t("stamps.damage.noteHint")} errors={state.fieldErrors?.note}>
