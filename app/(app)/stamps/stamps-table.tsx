@@ -199,14 +199,6 @@ export function StampsTable({ locations, sites, unitSystem, canWrite }: { locati
         </Notice>
       ) : null}
 
-      {error ? (
-        <Notice tone="error">
-          {refusedText.length ? refusedText.join(" ") : error.message}{" "}
-          <button type="button" className="underline" onClick={() => mutate()}>
-            {t("common.retry")}
-          </button>
-        </Notice>
-      ) : null}
 
       <DataTable
         table={table}
