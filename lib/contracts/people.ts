@@ -21,6 +21,11 @@ export interface ApiTokenDto {
   lastUsedAt: string | null;
 }
 
+/** An API token as administrators see it: with its owner. */
+export interface OwnedApiTokenDto extends ApiTokenDto {
+  owner: { id: string; name: string; email: string; disabled: boolean };
+}
+
 export const peopleUrls = {
   users: () => "/api/v1/users",
   user: (id: string) => `/api/v1/users/${encodeURIComponent(id)}`,
@@ -28,5 +33,7 @@ export const peopleUrls = {
   resetLink: (id: string) => `/api/v1/users/${encodeURIComponent(id)}/reset-link`,
   tokens: () => "/api/v1/tokens",
   token: (id: string) => `/api/v1/tokens/${encodeURIComponent(id)}`,
+  allTokens: () => "/api/v1/admin/tokens",
+  anyToken: (id: string) => `/api/v1/admin/tokens/${encodeURIComponent(id)}`,
   me: () => "/api/v1/me",
 };

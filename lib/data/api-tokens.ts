@@ -5,7 +5,7 @@ import { apiTokens, users } from "@/db/schema";
 import { hashSecret, newSecret } from "@/lib/auth/secrets";
 import { AppError } from "@/lib/errors";
 import { assertCan, type Actor } from "@/lib/authz";
-import type { ApiTokenDto } from "@/lib/contracts/people";
+import type { ApiTokenDto, OwnedApiTokenDto } from "@/lib/contracts/people";
 
 export async function listApiTokens(actor: Actor): Promise<ApiTokenDto[]> {
   assertCan(actor, "account:self");
@@ -38,11 +38,6 @@ export async function revokeApiToken(actor: Actor, id: string) {
     .where(and(eq(apiTokens.id, id), eq(apiTokens.userId, actor.id), isNull(apiTokens.revokedAt)))
     .returning({ id: apiTokens.id });
   if (!row) throw new AppError("notFound");
-}
-
-/** An API token as administrators see it: with its owner. */
-export interface OwnedApiTokenDto extends ApiTokenDto {
-  owner: { id: string; name: string; email: string; disabled: boolean };
 }
 
 /** Every live API token of every user, newest first (administrators). */

@@ -5,7 +5,7 @@ import { useActionState } from "react";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { initialFormState } from "@/lib/actions/form-state";
-import type { OwnedApiTokenDto } from "@/lib/data/api-tokens";
+import type { OwnedApiTokenDto } from "@/lib/contracts/people";
 import { revokeTokenAction } from "./actions";
 
 /** Everyone's live API tokens, for administrators: who owns each, when it was made and last used; revoke. */
