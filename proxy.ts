@@ -2,7 +2,7 @@ import { NextResponse, type NextRequest } from "next/server";
 import { isCrossSite } from "@/lib/api/cross-site";
 import { appOrigins } from "@/lib/app-origins";
 import { env } from "@/lib/env";
-import { pickLocale } from "@/lib/i18n/config";
+import { defaultLocale, isLocale, localeCookie, negotiateLocale } from "@/lib/i18n/config";
 import { translator } from "@/lib/i18n/translator";
 import { refusedPage } from "@/lib/refused-page";
 import { uploadOrigin } from "@/lib/upload-origin";
@@ -38,7 +38,9 @@ export function proxy(request: NextRequest) {
     // A form or server action from another origin: the framework would refuse it with a 500. Nothing runs;
     // the answer is 403 with the message page (a rewrite to a page would be proxied as a foreign URL
     // whenever the Host differs from the server's own name, so the page is written here).
-    const locale = pickLocale(request.headers.get("accept-language")?.split(",")[0]?.split("-")[0]);
+    // No session is read here: the browser's cookie or its Accept-Language decides (lib/i18n/request-locale.ts for pages).
+    const fromCookie = request.cookies.get(localeCookie)?.value;
+    const locale = isLocale(fromCookie) ? fromCookie : (negotiateLocale(request.headers.get("accept-language")) ?? defaultLocale);
     response = new NextResponse(refusedPage(translator(locale), locale, nonce), { status: 403, headers: { "content-type": "text/html; charset=utf-8", "cache-control": "no-store" } });
   } else if (!isApi && !isStaticFile(pathname) && !hasSessionCookie(request) && !publicPaths.some((p) => pathname === p || pathname.startsWith(`${p}/`))) {
     const url = request.nextUrl.clone();

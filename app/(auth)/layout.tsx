@@ -1,4 +1,5 @@
 import { getTranslations } from "next-intl/server";
+import { LanguageSwitch } from "@/components/shell/language-switch";
 import { Logo } from "@/components/shell/logo";
 
 export default async function AuthLayout({ children }: { children: React.ReactNode }) {
@@ -11,6 +12,9 @@ export default async function AuthLayout({ children }: { children: React.ReactNo
         <p className="max-w-sm text-sm text-stone-600">{t("tagline")}</p>
       </div>
       <div className="w-full max-w-sm rounded-lg border border-stone-200 bg-white p-6 shadow-sm">{children}</div>
+      <div className="mt-6">
+        <LanguageSwitch tone="light" />
+      </div>
     </main>
   );
 }

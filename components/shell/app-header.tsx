@@ -3,6 +3,7 @@ import Link from "next/link";
 import { signOutAction } from "@/lib/actions/sign-out";
 import { can } from "@/lib/permissions";
 import type { Actor } from "@/lib/session";
+import { LanguageSwitch } from "./language-switch";
 import { Logo } from "./logo";
 import { NavLink } from "./nav-link";
 import { navItems } from "./nav-items";
@@ -25,7 +26,8 @@ export async function AppHeader({ actor }: { actor: Actor }) {
               </NavLink>
             ))}
         </nav>
-        <div className="flex items-center gap-3 text-sm">
+        <div className="flex flex-wrap items-center gap-3 text-sm">
+          <LanguageSwitch tone="dark" />
           <Link href="/account" className="text-ink-100 hover:text-white" title={t("nav.signedInAs", { name: actor.name })}>
             {actor.name} · <span className="text-ink-200">{t(`roles.${actor.role}.name`)}</span>
           </Link>

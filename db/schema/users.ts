@@ -6,6 +6,11 @@ import { boolean, check, index, integer, pgEnum, pgTable, primaryKey, text, time
 export const roleEnum = pgEnum("role", ["admin", "keeper", "planner", "waxmaster", "designer"]);
 export const unitSystemEnum = pgEnum("unit_system", ["metric", "imperial"]);
 export const localeEnum = pgEnum("locale", ["en", "id"]);
+/**
+ * Where a user's language came from: nobody set it yet (the workshop default), the inviter chose it, the
+ * browser's language at the first sign-in, or the person chose it. The browser is asked only while "default".
+ */
+export const localeSourceEnum = pgEnum("locale_source", ["default", "invitation", "browser", "person"]);
 export const userTokenKindEnum = pgEnum("user_token_kind", ["invite", "reset"]);
 
 export const users = pgTable(
@@ -20,6 +25,7 @@ export const users = pgTable(
     disabled: boolean("disabled").notNull().default(false),
     unitSystem: unitSystemEnum("unit_system").notNull().default("metric"),
     locale: localeEnum("locale").notNull().default("en"),
+    localeSource: localeSourceEnum("locale_source").notNull().default("default"),
     /** Bumped when role, password or disabled changes: older sessions carry a lower number and are refused. */
     sessionVersion: integer("session_version").notNull().default(1),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),

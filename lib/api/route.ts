@@ -4,7 +4,7 @@ import type { z } from "zod";
 import { appOrigins } from "@/lib/app-origins";
 import { errorAnswer } from "@/lib/error-body";
 import { AppError, ValidationFailed } from "@/lib/errors";
-import { pickLocale } from "@/lib/i18n/config";
+import { defaultLocale, negotiateLocale, type Locale } from "@/lib/i18n/config";
 import { translator, type Translator } from "@/lib/i18n/translator";
 import { type Permission } from "@/lib/permissions";
 import { assertCan, currentActor, type Actor } from "@/lib/session";
@@ -53,9 +53,13 @@ export type RouteHandler = ((request: Request, context: { params: Promise<Record
 export const httpMethods = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
 export type HttpMethod = (typeof httpMethods)[number];
 
-/** The language of an answer: the user's setting, else the caller's Accept-Language, else English. */
-function localeFrom(request: Request, actor: Actor | null) {
-  return pickLocale(actor?.locale ?? request.headers.get("accept-language")?.split(",")[0]?.split("-")[0]);
+/**
+ * The language of an answer: a browser session answers in the person's setting (what their screens speak);
+ * a script with a token, and anyone not signed in, in the language its Accept-Language asks for; else English.
+ */
+export function localeFrom(request: Request, actor: Pick<Actor, "locale" | "via"> | null): Locale {
+  if (actor?.via === "session") return actor.locale;
+  return negotiateLocale(request.headers.get("accept-language")) ?? defaultLocale;
 }
 
 /** Answers any error in the JSON error shape (lib/error-body.ts). */

@@ -6,6 +6,8 @@ import type { Role } from "@/db/schema";
 import { clientAddressHeader, normalizeAddress, serverMarkerVariable } from "@/lib/client-address";
 import { openSession, revokeSession, sessionLifetimeSeconds } from "@/lib/data/sessions";
 import { checkCredentials } from "@/lib/data/sign-in";
+import { localeAtSignIn } from "@/lib/data/users";
+import { rememberLocale } from "@/lib/i18n/locale-cookie";
 import { parseInput } from "@/lib/validation/parse";
 import { signInSchema } from "@/lib/validation/users";
 
@@ -66,6 +68,8 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
         if (result.kind === "rateLimited") throw new RateLimited();
         if (result.kind !== "ok") return null;
         const { user } = result;
+        // The first sign-in takes the browser's language; from then on the cookie follows the user's setting.
+        await rememberLocale(await localeAtSignIn(user.id, (await headers()).get("accept-language")));
         return { id: user.id, email: user.email, name: user.name, role: user.role, sessionVersion: user.sessionVersion };
       },
     }),

@@ -10,6 +10,7 @@ export interface UserDto {
   disabled: boolean;
   invited: boolean;
   unitSystem: User["unitSystem"];
+  locale: User["locale"];
   createdAt: string;
 }
 

@@ -7,7 +7,7 @@ import { hashPassword } from "@/lib/auth/passwords";
 import { hashSecret, newSecret } from "@/lib/auth/secrets";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
-import { pickLocale } from "@/lib/i18n/config";
+import { negotiateLocale, pickLocale, type Locale } from "@/lib/i18n/config";
 import { dateFormat, translator } from "@/lib/i18n/translator";
 import { sendMail } from "@/lib/mail";
 import { clearSignInLimits } from "./sign-in";
@@ -26,6 +26,7 @@ export const toUserDto = (u: User): UserDto => ({
   disabled: u.disabled,
   invited: u.passwordHash === null,
   unitSystem: u.unitSystem,
+  locale: u.locale,
   createdAt: u.createdAt.toISOString(),
 });
 
@@ -64,7 +65,8 @@ export async function inviteUser(actor: Actor, input: InviteUserInput): Promise<
   assertCan(actor, "users:manage");
   const [existing] = await db.select({ id: users.id }).from(users).where(eq(sql`lower(${users.email})`, input.email)).limit(1);
   if (existing) throw new AppError("emailTaken", {}, { email: ["validation.emailTaken"] });
-  const [user] = await db.insert(users).values({ email: input.email, name: input.name, role: input.role }).returning();
+  const language = input.locale ? { locale: input.locale, localeSource: "invitation" as const } : {};
+  const [user] = await db.insert(users).values({ email: input.email, name: input.name, role: input.role, ...language }).returning();
   await sendInvitation(user, actor.name);
   return toUserDto(user);
 }
@@ -163,8 +165,36 @@ export async function setPasswordWithToken(secret: string, password: string): Pr
   });
 }
 
-export async function updateProfile(actor: Actor, patch: { name: string; unitSystem: User["unitSystem"] }) {
+/** Name, units and language from My account; the language then counts as the person's own choice. */
+export async function updateProfile(actor: Actor, patch: { name: string; unitSystem: User["unitSystem"]; locale: Locale }) {
   assertCan(actor, "account:self");
-  const [user] = await db.update(users).set({ ...patch, updatedAt: new Date() }).where(eq(users.id, actor.id)).returning();
+  const [user] = await db
+    .update(users)
+    .set({ ...patch, localeSource: "person", updatedAt: new Date() })
+    .where(eq(users.id, actor.id))
+    .returning();
   return toUserDto(user);
+}
+
+/** The header's language switch: the person's choice, kept on their account for every device. */
+export async function chooseLocale(actor: Actor, locale: Locale): Promise<Locale> {
+  assertCan(actor, "account:self");
+  await db.update(users).set({ locale, localeSource: "person", updatedAt: new Date() }).where(eq(users.id, actor.id));
+  return locale;
+}
+
+/**
+ * The language of someone signing in. Until anyone has set it (source "default"), the first sign-in takes the
+ * browser's language, or keeps the workshop's default when the browser names none of ours, and keeps it from
+ * then on: a later sign-in on another device does not change it, the person's own choice does.
+ */
+export async function localeAtSignIn(userId: string, acceptLanguage: string | null): Promise<Locale> {
+  const [settled] = await db
+    .update(users)
+    .set({ locale: negotiateLocale(acceptLanguage) ?? sql`${users.locale}`, localeSource: "browser" })
+    .where(and(eq(users.id, userId), eq(users.localeSource, "default")))
+    .returning({ locale: users.locale });
+  if (settled) return settled.locale;
+  const [user] = await db.select({ locale: users.locale }).from(users).where(eq(users.id, userId)).limit(1);
+  return user?.locale ?? pickLocale(null);
 }

@@ -20,11 +20,8 @@ import idShell from "./messages/id/shell.json";
 import idStamps from "./messages/id/stamps.json";
 import idWax from "./messages/id/wax.json";
 
-/**
- * Languages that have a catalogue. `locales` in config.ts lists the ones people can choose; a
- * catalogue may exist before its language is offered (Indonesian is written ahead of the switch).
- */
-export type CatalogueLocale = Locale | "id";
+/** Languages that have a catalogue: every language people can choose (`locales` in config.ts). */
+export type CatalogueLocale = Locale;
 
 // One file per area, each holding whole top-level namespaces, so areas can grow without
 // touching each other's files. Both lists name the same files in the same order;

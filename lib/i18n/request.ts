@@ -1,11 +1,10 @@
-import { cookies, headers } from "next/headers";
 import type { AbstractIntlMessages } from "next-intl";
 import { getRequestConfig } from "next-intl/server";
 import { workshopTimeZone } from "@/lib/data/settings";
 import { defaultTimeZone } from "@/lib/validation/settings";
-import { localeCookie, pickLocale } from "./config";
-import { dateTimeFormats } from "./formats";
+import { dateTimeFormats, numberFormats } from "./formats";
 import { messagesFor } from "./messages";
+import { requestLocale } from "./request-locale";
 
 /** The workshop's time zone (admin settings); the default one if the settings cannot be read, so pages still render. */
 async function timeZone(): Promise<string> {
@@ -17,14 +16,12 @@ async function timeZone(): Promise<string> {
   }
 }
 
-// No locale in the URL: the language follows the user's choice (a cookie set from their
-// profile), then the browser's first language. The time zone is the workshop's, for every page and
+// No locale in the URL: the language follows the signed-in person's setting, then the cookie, then the
+// browser (request-locale.ts). The time zone is the workshop's, for every page and
 // (through NextIntlClientProvider) every client component: the one place dates get their zone and
 // their "now".
 export default getRequestConfig(async () => {
-  const fromCookie = (await cookies()).get(localeCookie)?.value;
-  const fromBrowser = (await headers()).get("accept-language")?.split(",")[0]?.split("-")[0];
-  const locale = pickLocale(fromCookie ?? fromBrowser);
+  const locale = await requestLocale();
   // `now` too: relative times ("5 seconds ago") then read the same on the server and while the page hydrates.
-  return { locale, messages: messagesFor(locale) as AbstractIntlMessages, timeZone: await timeZone(), now: new Date(), formats: { dateTime: dateTimeFormats } };
+  return { locale, messages: messagesFor(locale) as AbstractIntlMessages, timeZone: await timeZone(), now: new Date(), formats: { dateTime: dateTimeFormats, number: numberFormats } };
 });

@@ -1,7 +1,8 @@
 import { createFormatter, createTranslator, type AbstractIntlMessages } from "next-intl";
 import { type Locale, defaultLocale } from "./config";
 import { messagesFor } from "./messages";
-import { calendarDay, dateTimeFormats } from "./formats";
+import { calendarDay, dateTimeFormats, numberFormats } from "./formats";
+import type { NumberFormatter } from "./measures";
 
 type Values = Record<string, string | number | Date>;
 
@@ -9,12 +10,15 @@ type Values = Record<string, string | number | Date>;
 export interface Translator {
   (key: string, values?: Values): string;
   has(key: string): boolean;
+  /** The language it speaks (an e-mail's `lang`). */
+  locale: Locale;
 }
 
 export function translator(locale: Locale = defaultLocale): Translator {
-  const t = createTranslator({ locale, messages: messagesFor(locale) as AbstractIntlMessages });
+  const t = createTranslator({ locale, messages: messagesFor(locale) as AbstractIntlMessages, formats: { number: numberFormats } });
   const translate = ((key: string, values?: Values) => t(key as never, values as never)) as Translator;
   translate.has = (key: string) => t.has(key as never);
+  translate.locale = locale;
   return translate;
 }
 
@@ -34,4 +38,10 @@ export function dateFormat(locale: Locale, timeZone: string): DateFormat {
     instant: (at) => format.dateTime(at, "moment"),
     day: (iso) => format.dateTime(calendarDay(iso), "day"),
   };
+}
+
+/** Numbers for code outside React (e-mails, scripts), with the app's named formats; `measures(numberFormatter(locale), units)` for lengths. */
+export function numberFormatter(locale: Locale): NumberFormatter {
+  const format = createFormatter({ locale, formats: { number: numberFormats } });
+  return { number: (value, formatOrOptions) => format.number(value, formatOrOptions as never) };
 }

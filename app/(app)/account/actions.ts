@@ -1,12 +1,13 @@
 "use server";
 
-import { getTranslations } from "next-intl/server";
 import { revalidatePath } from "next/cache";
 import { signOut } from "@/lib/auth/config";
 import type { FormState } from "@/lib/actions/form-state";
 import { runForm } from "@/lib/actions/run-form";
 import { revokeAllSessions } from "@/lib/data/sessions";
 import { updateProfile } from "@/lib/data/users";
+import { rememberLocale } from "@/lib/i18n/locale-cookie";
+import { translator } from "@/lib/i18n/translator";
 import { requirePermission } from "@/lib/session";
 import { updateProfileSchema } from "@/lib/validation/users";
 
@@ -14,8 +15,10 @@ export async function updateProfileAction(_prev: FormState, formData: FormData):
   return runForm(formData, updateProfileSchema, async (input) => {
     const actor = await requirePermission("account:self");
     await updateProfile(actor, input);
+    await rememberLocale(input.locale);
     revalidatePath("/", "layout");
-    return { status: "success", message: (await getTranslations("account"))("saved") };
+    // Said in the language just chosen: the page around it changes to it too.
+    return { status: "success", message: translator(input.locale)("account.saved") };
   });
 }
 

@@ -20,7 +20,7 @@ export default async function AccountPage() {
       <div className="grid gap-6 lg:grid-cols-[1fr_2fr]">
         <div className="space-y-6">
           <Panel title={t("account.profile")}>
-            <ProfileForm name={actor.name} unitSystem={actor.unitSystem} />
+            <ProfileForm name={actor.name} unitSystem={actor.unitSystem} locale={actor.locale} />
           </Panel>
           <SessionsPanel actor={actor} />
         </div>

@@ -6,18 +6,20 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { initialFormState } from "@/lib/actions/form-state";
+import { localeNames, locales, type Locale } from "@/lib/i18n/config";
 import { roles } from "@/lib/permissions";
 import { inviteUserAction } from "./actions";
 
-export function InviteForm() {
+/** `locale`: the language offered first, the inviter's own (the person invited often shares it). */
+export function InviteForm({ locale }: { locale: Locale }) {
   const t = useTranslations();
   const [state, action, pending] = useActionState(inviteUserAction, initialFormState);
   // A successful invitation clears the form (new key); a failed one keeps what was typed.
   const formKey = state.status === "success" ? state.message : "form";
   return (
-    <form key={formKey} action={action} aria-label={t("admin.invite.title")} className="grid gap-4 md:grid-cols-[1fr_1fr_12rem_auto] md:items-start" noValidate>
+    <form key={formKey} action={action} aria-label={t("admin.invite.title")} className="grid gap-4 md:grid-cols-[1fr_1fr_12rem_12rem_auto] md:items-start" noValidate>
       {state.message ? (
-        <Notice tone={state.status === "success" ? "success" : "error"} className="md:col-span-4">
+        <Notice tone={state.status === "success" ? "success" : "error"} className="md:col-span-5">
           {state.message}
         </Notice>
       ) : null}
@@ -33,6 +35,17 @@ export function InviteForm() {
             {roles.map((role) => (
               <option key={role} value={role}>
                 {t(`roles.${role}.name`)}
+              </option>
+            ))}
+          </select>
+        )}
+      </Field>
+      <Field id="invite-language" label={t("admin.invite.language")} errors={state.fieldErrors?.locale}>
+        {(aria) => (
+          <select {...aria} key={state.status === "error" ? state.values?.locale : locale} name="locale" defaultValue={state.status === "error" ? state.values?.locale : locale}>
+            {locales.map((l) => (
+              <option key={l} value={l} lang={l}>
+                {localeNames[l]}
               </option>
             ))}
           </select>

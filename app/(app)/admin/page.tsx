@@ -35,7 +35,7 @@ export default async function PeoplePage() {
       />
       <div className="space-y-6">
         <Panel title={t("invite.title")} intro={t("invite.intro")}>
-          <InviteForm />
+          <InviteForm locale={actor.locale} />
         </Panel>
         <UsersTable users={users} selfId={actor.id} />
         <Panel title={t("tokens.title")} intro={t("tokens.intro")}>

@@ -1,0 +1,2 @@
+CREATE TYPE "public"."locale_source" AS ENUM('default', 'invitation', 'browser', 'person');--> statement-breakpoint
+ALTER TABLE "users" ADD COLUMN "locale_source" "locale_source" DEFAULT 'default' NOT NULL;

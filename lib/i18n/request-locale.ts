@@ -1,0 +1,20 @@
+import "server-only";
+import { cookies, headers } from "next/headers";
+import { currentActor } from "@/lib/session";
+import { type Locale, defaultLocale, isLocale, localeCookie, negotiateLocale } from "./config";
+
+/**
+ * The language of a page or server action, in one place: the signed-in person's setting (stored on the
+ * user, so it holds on every device), else the cookie (the choice made before signing in, or the last
+ * person's on this browser), else the browser's Accept-Language, else English.
+ */
+export async function requestLocale(): Promise<Locale> {
+  const actor = await currentActor().catch((error: unknown) => {
+    console.error("the signed-in person could not be read; choosing the language without them", error);
+    return null;
+  });
+  if (actor) return actor.locale;
+  const fromCookie = (await cookies()).get(localeCookie)?.value;
+  if (isLocale(fromCookie)) return fromCookie;
+  return negotiateLocale((await headers()).get("accept-language")) ?? defaultLocale;
+}
