@@ -53,7 +53,7 @@ export function CoverageReview({
   const [savedRatio, setSavedRatio] = useState<number | null>(null);
   const coverage = data?.coverage;
   const overlayUrl = `${scan.urls.overlay}?${new URLSearchParams({ polarity, threshold: String(settledThreshold) })}`;
-  const percent = (ratio: number) => format.number(ratio, { style: "percent", maximumFractionDigits: 1 });
+  const percent = (ratio: number) => format.number(ratio, "percent");
 
   async function save() {
     setSaving(true);

@@ -14,6 +14,7 @@ import { useScans, useSimilarStamps, type ScansAnswer } from "@/lib/swr/use-scan
 import { CoverageReview } from "./coverage-review";
 import { ScanUploader } from "./scan-uploader";
 import { Modal } from "@/components/ui/modal";
+import { measures } from "@/lib/i18n/measures";
 
 interface Props {
   code: string;
@@ -126,7 +127,7 @@ function ScanCard({ scan, canWrite, unitSystem, onView, onReview, onDeleted }: {
   const [deleting, setDeleting] = useState(false);
   const [deleteError, setDeleteError] = useState<string | null>(null);
   const kind = t(`kindShort.${scan.kind}`);
-  const length = (mm: number) => (unitSystem === "imperial" ? `${format.number(mm / 25.4, { maximumFractionDigits: 2 })} in` : `${format.number(mm, { maximumFractionDigits: 1 })} mm`);
+  const measure = measures(format, unitSystem);
   const check = scan.sizeCheck;
 
   async function remove() {
@@ -162,7 +163,7 @@ function ScanCard({ scan, canWrite, unitSystem, onView, onReview, onDeleted }: {
         </div>
         {scan.sizeMm && check ? (
           <div data-testid="size-check" className={cn(check.warn ? "text-amber-800" : "text-emerald-800")}>
-            {t("card.measured", { size: `${length(scan.sizeMm.widthMm)} × ${length(scan.sizeMm.heightMm)}` })}.{" "}
+            {t("card.measured", { size: measure.size(scan.sizeMm.widthMm, scan.sizeMm.heightMm) })}.{" "}
             {check.warn ? t("card.sizeWarn", { deviation: check.maxDeviationPct, tolerance: check.tolerancePct }) : t("card.sizeOk", { tolerance: check.tolerancePct })}
           </div>
         ) : (

@@ -3,8 +3,8 @@ import { cn } from "@/components/ui/cn";
 import type { StampEventDto } from "@/lib/contracts/stamps";
 import { damageKinds, stampConditions, stampFaces } from "@/lib/validation/stamps";
 import type { UnitSystem } from "@/lib/stamps/format";
-import { lengthText, massText } from "./measure";
 import { calendarDay } from "@/lib/i18n/formats";
+import { measures } from "@/lib/i18n/measures";
 
 const dots: Record<string, string> = {
   created: "bg-ink-600",
@@ -31,17 +31,19 @@ const oneOf = <T extends string>(list: readonly T[], value: unknown): value is T
 export async function StampHistory({ events, unitSystem }: { events: StampEventDto[]; unitSystem: UnitSystem }) {
   const t = await getTranslations();
   const format = await getFormatter();
+  const measure = measures(format, unitSystem);
   const none = t("stamps.history.none");
   const condition = (c: string | null) => (oneOf(stampConditions, c) ? t(`stamps.conditions.${c}`) : (c ?? none));
   const value = (field: string, v: unknown): string => {
     if (v === null || v === undefined || v === "") return none;
-    if (lengthFields.has(field) && typeof v === "number") return lengthText(v, unitSystem, format.number);
-    if (field === "weightG" && typeof v === "number") return massText(v, unitSystem, format.number);
-    if (field === "coverageRatio" && typeof v === "number") return format.number(v, { style: "percent", maximumFractionDigits: 1 });
+    if (lengthFields.has(field) && typeof v === "number") return measure.length(v);
+    if (field === "weightG" && typeof v === "number") return measure.mass(v);
+    if (field === "coverageRatio" && typeof v === "number") return measure.percent(v);
     if (field === "face" && oneOf(stampFaces, v)) return t(`stamps.faces.${v}`);
     if (typeof v === "boolean") return v ? t("stamps.yes") : t("stamps.no");
     if (Array.isArray(v)) return v.join(", ") || none;
     if (field === "outlinePath") return t("stamps.history.outline");
+    if (typeof v === "number") return measure.count(v);
     return String(v);
   };
   const date = (iso: string) => format.dateTime(calendarDay(iso), "day");

@@ -5,10 +5,10 @@ import Link from "next/link";
 import { useFormatter, useTranslations } from "next-intl";
 import { useMemo } from "react";
 import { ConditionBadge, OutBadge } from "@/components/stamps/condition-badge";
-import { sizeText } from "@/components/stamps/measure";
 import { cn } from "@/components/ui/cn";
 import type { StampListItem } from "@/lib/contracts/stamps";
 import { calendarDay } from "@/lib/i18n/formats";
+import { measures } from "@/lib/i18n/measures";
 import { isLowCoverage } from "@/lib/stamps/coverage";
 import type { UnitSystem } from "@/lib/stamps/format";
 import type { StampSortKey } from "@/lib/validation/stamps";
@@ -60,7 +60,7 @@ function stampColumns(t: ReturnType<typeof useTranslations<never>>, format: Retu
     column.accessor("widthMm", {
       id: "size",
       header: () => t("stamps.columns.size"),
-      cell: ({ row }) => <span className="whitespace-nowrap tabular-nums">{sizeText(row.original.widthMm, row.original.heightMm, unitSystem, format.number)}</span>,
+      cell: ({ row }) => <span className="whitespace-nowrap tabular-nums">{measures(format, unitSystem).size(row.original.widthMm, row.original.heightMm)}</span>,
     }),
     column.accessor("face", {
       header: () => t("stamps.columns.face"),
@@ -129,14 +129,14 @@ function stampColumns(t: ReturnType<typeof useTranslations<never>>, format: Retu
           <span className="text-stone-400">—</span>
         ) : (
           <span className={cn("tabular-nums", isLowCoverage(row.original.coverageRatio) && "font-medium text-amber-800")}>
-            {format.number(row.original.coverageRatio, { style: "percent", maximumFractionDigits: 2 })}
+            {measures(format, unitSystem).percent(row.original.coverageRatio, true)}
           </span>
         ),
     }),
     column.accessor("impressionsCount", {
       id: "impressions",
       header: () => t("stamps.columns.impressions"),
-      cell: (info) => <span className="tabular-nums">{format.number(info.getValue())}</span>,
+      cell: (info) => <span className="tabular-nums">{format.number(info.getValue(), "count")}</span>,
     }),
     column.accessor("updatedAt", {
       id: "updated",

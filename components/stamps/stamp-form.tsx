@@ -1,12 +1,13 @@
 "use client";
 
 import Link from "next/link";
-import { useTranslations } from "next-intl";
+import { useLocale, useTranslations } from "next-intl";
 import { useActionState, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { initialFormState, type FormState } from "@/lib/actions/form-state";
+import { numberInput } from "@/lib/contracts/form-input";
 import { ratioToPercent } from "@/lib/stamps/coverage";
 import { lengthInput, massInput, type UnitSystem } from "@/lib/stamps/format";
 import { stampConditions } from "@/lib/validation/stamps";
@@ -51,6 +52,7 @@ export function StampForm({
   locations: { id: string; label: string }[];
 }) {
   const t = useTranslations();
+  const locale = useLocale();
   const [state, formAction, pending] = useActionState(action, initialFormState);
   const failed = state.status === "error";
   const v = (name: string, fallback: string) => (failed ? (state.values?.[name] ?? "") : fallback);
@@ -99,16 +101,16 @@ export function StampForm({
       <fieldset className="grid gap-4 md:grid-cols-4">
         <legend className="mb-2 text-sm font-semibold text-stone-900">{t("stamps.form.size")}</legend>
         <Field id="stamp-width" label={t("stamps.form.width", { unit: lengthUnit })} errors={e.widthMm}>
-          {(aria) => <input {...aria} name="widthMm" inputMode="decimal" defaultValue={v("widthMm", lengthInput(initial.widthMm, unitSystem))} />}
+          {(aria) => <input {...aria} name="widthMm" inputMode="decimal" defaultValue={v("widthMm", numberInput(lengthInput(initial.widthMm, unitSystem), locale))} />}
         </Field>
         <Field id="stamp-height" label={t("stamps.form.height", { unit: lengthUnit })} errors={e.heightMm}>
-          {(aria) => <input {...aria} name="heightMm" inputMode="decimal" defaultValue={v("heightMm", lengthInput(initial.heightMm, unitSystem))} />}
+          {(aria) => <input {...aria} name="heightMm" inputMode="decimal" defaultValue={v("heightMm", numberInput(lengthInput(initial.heightMm, unitSystem), locale))} />}
         </Field>
         <Field id="stamp-depth" label={t("stamps.form.depth", { unit: lengthUnit })} hint={t("stamps.form.depthHint")} errors={e.stripDepthMm}>
-          {(aria) => <input {...aria} name="stripDepthMm" inputMode="decimal" defaultValue={v("stripDepthMm", lengthInput(initial.stripDepthMm, unitSystem))} />}
+          {(aria) => <input {...aria} name="stripDepthMm" inputMode="decimal" defaultValue={v("stripDepthMm", numberInput(lengthInput(initial.stripDepthMm, unitSystem), locale))} />}
         </Field>
         <Field id="stamp-weight" label={t("stamps.form.weight", { unit: weightUnit })} errors={e.weightG}>
-          {(aria) => <input {...aria} name="weightG" inputMode="decimal" defaultValue={v("weightG", massInput(initial.weightG, unitSystem))} />}
+          {(aria) => <input {...aria} name="weightG" inputMode="decimal" defaultValue={v("weightG", numberInput(massInput(initial.weightG, unitSystem), locale))} />}
         </Field>
       </fieldset>
 
@@ -163,7 +165,7 @@ export function StampForm({
         <div className="space-y-2">
           <Field id="stamp-coverage" label={t("stamps.form.coverage")} hint={t("stamps.form.coverageHint")} errors={e.coveragePct}>
             {(aria) => (
-              <input {...aria} name="coveragePct" inputMode="decimal" defaultValue={v("coveragePct", initial.coverageRatio !== null ? String(ratioToPercent(initial.coverageRatio)) : "")} />
+              <input {...aria} name="coveragePct" inputMode="decimal" defaultValue={v("coveragePct", initial.coverageRatio !== null ? numberInput(ratioToPercent(initial.coverageRatio), locale) : "")} />
             )}
           </Field>
           {state.data?.lowCoverage ? (

@@ -174,19 +174,23 @@ export const stampUrls = {
 
 // --- form input: the shelf's forms → their schemas' input (lengths in mm, masses in g, coverage as a ratio) ---
 
-/** The stamp form in the person's units (hidden field unitSystem) → createStampSchema / updateStampSchema input. */
-export function stampFormInput(form: FormData, mode: "create" | "update"): Record<string, unknown> {
+/**
+ * The stamp form in the person's units (hidden field unitSystem) and as their language writes numbers
+ * (`locale`: "120,5" in Indonesian) → createStampSchema / updateStampSchema input.
+ */
+export function stampFormInput(form: FormData, mode: "create" | "update", locale: string): Record<string, unknown> {
+  const number = (name: string) => formNumber(form, name, locale);
   const imperial = formText(form, "unitSystem") === "imperial";
   const convert = (value: number | null, toMetric: (v: number) => number) => (value === null || Number.isNaN(value) || !imperial ? value : toMetric(value));
   const required = (value: number | null) => value ?? undefined;
-  const pct = formNumber(form, "coveragePct");
+  const pct = number("coveragePct");
   const input: Record<string, unknown> = {
     code: formText(form, "code"),
     name: formText(form, "name"),
-    widthMm: required(convert(formNumber(form, "widthMm"), inchesToMm)),
-    heightMm: required(convert(formNumber(form, "heightMm"), inchesToMm)),
-    stripDepthMm: convert(formNumber(form, "stripDepthMm"), inchesToMm),
-    weightG: convert(formNumber(form, "weightG"), ouncesToGrams),
+    widthMm: required(convert(number("widthMm"), inchesToMm)),
+    heightMm: required(convert(number("heightMm"), inchesToMm)),
+    stripDepthMm: convert(number("stripDepthMm"), inchesToMm),
+    weightG: convert(number("weightG"), ouncesToGrams),
     face: formOptional(form, "face"),
     mirrored: formChecked(form, "mirrored"),
     twinCode: formText(form, "twinCode").trim() || null,
@@ -196,7 +200,7 @@ export function stampFormInput(form: FormData, mode: "create" | "update"): Recor
     // The form takes %, the schema a ratio 0–1.
     coverageRatio: form.get("coveragePct") !== null ? (pct === null || Number.isNaN(pct) ? pct : pct / 100) : undefined,
     outlinePath: formText(form, "outlinePath").trim() || null,
-    impressionsCount: required(formNumber(form, "impressionsCount")) ?? 0,
+    impressionsCount: required(number("impressionsCount")) ?? 0,
     notes: formText(form, "notes"),
     tags: formText(form, "tags")
       .split(",")
@@ -222,9 +226,9 @@ export function checkoutFormInput(form: FormData) {
   };
 }
 
-/** The return form: where it goes back (empty: its recorded place) and impressions made while out. */
-export function returnFormInput(form: FormData) {
-  return { note: formText(form, "note"), locationId: formOptional(form, "locationId") ?? null, impressions: formNumber(form, "impressions") ?? undefined };
+/** The return form: where it goes back (empty: its recorded place) and impressions made while out ("1.200" in Indonesian). */
+export function returnFormInput(form: FormData, locale: string) {
+  return { note: formText(form, "note"), locationId: formOptional(form, "locationId") ?? null, impressions: formNumber(form, "impressions", locale) ?? undefined };
 }
 
 export const damageFormInput = (form: FormData) => ({ kind: formOptional(form, "kind"), note: formText(form, "note") });

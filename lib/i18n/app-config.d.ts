@@ -1,4 +1,4 @@
-import type { dateTimeFormats } from "./formats";
+import type { dateTimeFormats, numberFormats } from "./formats";
 import type enApi from "./messages/en/api.json";
 import type enAuth from "./messages/en/auth.json";
 import type enEmails from "./messages/en/emails.json";
@@ -13,7 +13,7 @@ import type enStamps from "./messages/en/stamps.json";
 // from a template) fails `npm run typecheck`.
 declare module "next-intl" {
   interface AppConfig {
-    Formats: { dateTime: typeof dateTimeFormats };
+    Formats: { dateTime: typeof dateTimeFormats; number: typeof numberFormats };
     Messages: typeof enApi & typeof enAuth & typeof enEmails & typeof enErrors & typeof enLayout & typeof enPeople & typeof enScans & typeof enShell & typeof enStamps;
   }
 }

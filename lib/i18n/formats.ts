@@ -15,3 +15,19 @@ export type DateTimeFormatName = keyof typeof dateTimeFormats;
 
 /** A YYYY-MM-DD calendar day as the Date the "day" format expects. */
 export const calendarDay = (iso: string): Date => new Date(`${iso}T00:00:00Z`);
+
+/**
+ * The app's number formats, by name, for next-intl (`format.number(ratio, "percent")`, or `{ratio, number,
+ * percent}` in a message) and for e-mails. The language decides the signs: 35,2 % and 1.200 in
+ * Indonesian, 35.2% and 1,200 in English.
+ */
+export const numberFormats = {
+  /** A ratio 0–1 as a percentage to one decimal (coverage). */
+  percent: { style: "percent", maximumFractionDigits: 1 },
+  /** A small ratio as a percentage to two decimals (coverage under 1 %). */
+  percentFine: { style: "percent", maximumFractionDigits: 2 },
+  /** A count of things. */
+  count: { maximumFractionDigits: 0 },
+} as const satisfies Record<string, Intl.NumberFormatOptions>;
+
+export type NumberFormatName = keyof typeof numberFormats;

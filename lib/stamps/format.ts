@@ -22,15 +22,18 @@ export function massFor(g: number, system: UnitSystem): Shown {
   return g >= 1000 ? { value: g / 1000, unit: "kg", digits: 2 } : { value: g, unit: "g", digits: 0 };
 }
 
-/** What a form shows in a length field (4 decimals in inches, so 0.1 mm survives a round trip). */
-export function lengthInput(mm: number | null | undefined, system: UnitSystem): string {
-  if (mm === null || mm === undefined) return "";
-  return system === "imperial" ? String(Number(mmToInches(mm).toFixed(4))) : String(mm);
+/**
+ * The number a form shows in a length field, in the person's units (4 decimals in inches, so 0.1 mm
+ * survives a round trip); the form writes it in the person's language (numberInput in lib/contracts/form-input.ts).
+ */
+export function lengthInput(mm: number | null | undefined, system: UnitSystem): number | null {
+  if (mm === null || mm === undefined) return null;
+  return system === "imperial" ? Number(mmToInches(mm).toFixed(4)) : mm;
 }
 
-export function massInput(g: number | null | undefined, system: UnitSystem): string {
-  if (g === null || g === undefined) return "";
-  return system === "imperial" ? String(Number(gramsToOunces(g).toFixed(2))) : String(g);
+export function massInput(g: number | null | undefined, system: UnitSystem): number | null {
+  if (g === null || g === undefined) return null;
+  return system === "imperial" ? Number(gramsToOunces(g).toFixed(2)) : g;
 }
 
 /** A location as people read it: "site · code" (history entries, pickers, labels and the record). */

@@ -15,6 +15,7 @@ import { requirePermission } from "@/lib/session";
 import { isLowCoverage, ratioToPercent } from "@/lib/stamps/coverage";
 import { checkoutFormInput, conditionFormInput, damageFormInput, returnFormInput, stampFormInput } from "@/lib/contracts/stamps";
 import { formText } from "@/lib/contracts/form-input";
+import type { Locale } from "@/lib/i18n/config";
 import {
   checkoutSchema,
   conditionChangeSchema,
@@ -69,7 +70,7 @@ export async function createStampAction(_prev: FormState, formData: FormData): P
       if (unconfirmed) return unconfirmed;
       code = (await createStamp(actor, input)).code;
     },
-    (f) => stampFormInput(f, "create"),
+    (f, locale) => stampFormInput(f, "create", locale),
   );
   if (state.status === "success" && code) {
     revalidatePath("/stamps");
@@ -97,7 +98,7 @@ export async function updateStampAction(_prev: FormState, formData: FormData): P
         throw error;
       }
     },
-    (f) => stampFormInput(f, "update"),
+    (f, locale) => stampFormInput(f, "update", locale),
   );
   if (state.status === "success" && code) {
     revalidatePath("/stamps");
@@ -128,7 +129,7 @@ export async function deleteStampAction(_prev: FormState, formData: FormData): P
 async function onStamp<S extends z.ZodType>(
   formData: FormData,
   schema: S,
-  toInput: (f: FormData) => unknown,
+  toInput: (f: FormData, locale: Locale) => unknown,
   work: (code: string, input: z.output<S>) => Promise<string>,
 ): Promise<FormState> {
   const code = stampCodeSchema.safeParse(formText(formData, "code"));

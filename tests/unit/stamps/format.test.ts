@@ -26,7 +26,7 @@ describe("stamp sizes in the user's units", () => {
   });
 
   it("leaves empty values empty", () => {
-    expect(lengthInput(null, "metric")).toBe("");
-    expect(massInput(undefined, "imperial")).toBe("");
+    expect(lengthInput(null, "metric")).toBeNull();
+    expect(massInput(undefined, "imperial")).toBeNull();
   });
 });

@@ -7,7 +7,6 @@ import { LoadingState } from "@/components/shell/loading-state";
 import { ConditionBadge, OutBadge } from "@/components/stamps/condition-badge";
 import { Footprint } from "@/components/stamps/footprint";
 import { StampHistory } from "@/components/stamps/history";
-import { lengthText, massText, sizeText } from "@/components/stamps/measure";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { listLocations } from "@/lib/data/stamps/locations";
@@ -22,6 +21,7 @@ import { nextConditions } from "@/lib/stamps/condition";
 import { stampCodeSchema } from "@/lib/validation/stamps";
 import { CheckoutForm, ConditionForm, DamageForm, DeleteStamp, ReturnForm } from "./stamp-panels";
 import { ScansSection } from "./scans-section";
+import { measures } from "@/lib/i18n/measures";
 import { calendarDay } from "@/lib/i18n/formats";
 import { locationLabel } from "@/lib/stamps/format";
 
@@ -56,6 +56,7 @@ export default async function StampPage({ params, searchParams }: Props) {
     canWrite ? listBorrowers(actor) : [],
   ]);
   const units = actor.unitSystem;
+  const measure = measures(format, units);
   const none = <span className="text-stone-500">{t("stamps.record.notRecorded")}</span>;
   const day = (iso: string) => format.dateTime(calendarDay(iso), "day");
   const defaultDue = isoDateAfter(new Date(), 7);
@@ -63,9 +64,9 @@ export default async function StampPage({ params, searchParams }: Props) {
   const next = nextConditions(stamp.condition);
 
   const facts: [string, React.ReactNode][] = [
-    [t("stamps.fields.size"), sizeText(stamp.widthMm, stamp.heightMm, units, format.number)],
-    [t("stamps.fields.stripDepthMm"), stamp.stripDepthMm !== null ? lengthText(stamp.stripDepthMm, units, format.number) : none],
-    [t("stamps.fields.weightG"), stamp.weightG !== null ? massText(stamp.weightG, units, format.number) : none],
+    [t("stamps.fields.size"), measure.size(stamp.widthMm, stamp.heightMm)],
+    [t("stamps.fields.stripDepthMm"), stamp.stripDepthMm !== null ? measure.length(stamp.stripDepthMm) : none],
+    [t("stamps.fields.weightG"), stamp.weightG !== null ? measure.mass(stamp.weightG) : none],
     [t("stamps.fields.face"), `${t(`stamps.faces.${stamp.face}`)}${stamp.mirrored ? ` · ${t("stamps.fields.mirroredShort")}` : ""}`],
     [
       t("stamps.fields.twin"),
@@ -98,13 +99,13 @@ export default async function StampPage({ params, searchParams }: Props) {
         none
       ) : isLowCoverage(stamp.coverageRatio) ? (
         <span className="text-amber-800" data-testid="coverage-low">
-          {format.number(stamp.coverageRatio, { style: "percent", maximumFractionDigits: 2 })} · {t("stamps.record.coverageLow")}
+          {measure.percent(stamp.coverageRatio, true)} · {t("stamps.record.coverageLow")}
         </span>
       ) : (
-        format.number(stamp.coverageRatio, { style: "percent", maximumFractionDigits: 1 })
+        measure.percent(stamp.coverageRatio)
       ),
     ],
-    [t("stamps.fields.impressionsCount"), format.number(stamp.impressionsCount)],
+    [t("stamps.fields.impressionsCount"), measure.count(stamp.impressionsCount)],
     [
       t("stamps.fields.tags"),
       stamp.tags.length ? (
@@ -177,9 +178,9 @@ export default async function StampPage({ params, searchParams }: Props) {
                 heightMm={stamp.heightMm}
                 outlinePath={stamp.outlinePath}
                 mirrored={false}
-                widthLabel={lengthText(stamp.widthMm, units, format.number)}
-                heightLabel={lengthText(stamp.heightMm, units, format.number)}
-                title={t("stamps.record.footprint", { size: sizeText(stamp.widthMm, stamp.heightMm, units, format.number) })}
+                widthLabel={measure.length(stamp.widthMm)}
+                heightLabel={measure.length(stamp.heightMm)}
+                title={t("stamps.record.footprint", { size: measure.size(stamp.widthMm, stamp.heightMm) })}
                 className="w-full"
               />
             </div>

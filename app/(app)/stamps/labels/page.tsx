@@ -2,7 +2,6 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { getFormatter, getTranslations } from "next-intl/server";
 import QRCode from "qrcode";
-import { sizeText } from "@/components/stamps/measure";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
@@ -17,6 +16,7 @@ import { stampCodeSchema, stampListQuerySchema } from "@/lib/validation/stamps";
 import { parseInput } from "@/lib/validation/parse";
 import { PrintButton } from "./print-button";
 import { locationLabel } from "@/lib/stamps/format";
+import { measures } from "@/lib/i18n/measures";
 
 export async function generateMetadata(): Promise<Metadata> {
   return { title: (await getTranslations("labels"))("title") };
@@ -100,7 +100,7 @@ export default async function LabelsPage({ searchParams }: Props) {
             <div className="min-w-0 text-[9pt] leading-tight">
               <p className="font-mono text-[13pt] font-bold text-stone-900">{s.code}</p>
               <p className="line-clamp-2 text-stone-800">{s.name}</p>
-              <p className="text-stone-600">{sizeText(s.widthMm, s.heightMm, actor.unitSystem, format.number)}</p>
+              <p className="text-stone-600">{measures(format, actor.unitSystem).size(s.widthMm, s.heightMm)}</p>
               <p className="text-stone-600">{locationLabel(s.location) ?? t("stamps.table.noLocation")}</p>
             </div>
           </article>
