@@ -24,9 +24,14 @@ function withMegabytes(values: MessageValues): MessageValues {
   return out;
 }
 
+/** Placeholder values that are catalogue keys, said in the reader's language. */
+function spoken(t: Translator, values: MessageValues): Record<string, string | number> {
+  return Object.fromEntries(Object.entries(values).map(([name, v]) => [name, typeof v === "object" ? (t.has(v.key) ? t(v.key) : v.key) : v]));
+}
+
 /** Translates one catalogue key; an unknown key (a schema naming a message that does not exist) reads "Not valid". */
 function say(t: Translator, key: string, values: MessageValues): string {
-  return t.has(key) ? t(key, withMegabytes(values)) : t("validation.invalid");
+  return t.has(key) ? t(key, spoken(t, withMegabytes(values))) : t("validation.invalid");
 }
 
 /**

@@ -67,7 +67,13 @@ export type AnswerCode = keyof typeof statusTable;
 
 export const statusOf = (code: AnswerCode): number => statusTable[code];
 
-export type MessageValues = Record<string, string | number>;
+/**
+ * A value for a message's placeholder: text, a number (formatted in the reader's language by `{n, number}`),
+ * or a catalogue key to be said in the reader's language too (`{ key: "stamps.conditions.needs_repair" }`),
+ * so an error about a stored code value never shows the code.
+ */
+export type MessageValue = string | number | { key: string };
+export type MessageValues = Record<string, MessageValue>;
 
 /** A message before translation: a catalogue key and the values of its placeholders. */
 export interface MessageRef {
@@ -142,8 +148,8 @@ export function issueKey(issue: RawIssue): string {
 }
 
 /** The values a message for this issue interpolates ({min}, {max}, {options}, …, and a custom check's params). */
-export function issueValues(issue: RawIssue): MessageValues {
-  const values: MessageValues = {};
+export function issueValues(issue: RawIssue): Record<string, string | number> {
+  const values: Record<string, string | number> = {};
   switch (issue.code) {
     case "too_small":
       values.min = Number(issue.minimum);
@@ -177,7 +183,7 @@ export function issueValues(issue: RawIssue): MessageValues {
 const CATALOGUE_KEY = /^[a-z][A-Za-z]*(\.[A-Za-z0-9]+)+$/;
 
 /** Catalogue key and values for one zod issue: the schema's own key when it names one, else the key for its code. */
-export function issueMessage(issue: RawIssue): MessageRef {
+export function issueMessage(issue: RawIssue): { key: string; values: Record<string, string | number> } {
   const message = "message" in issue ? issue.message : undefined;
   const key = message && CATALOGUE_KEY.test(message) ? message : issueKey(issue);
   return { key, values: issueValues(issue) };

@@ -1,7 +1,12 @@
+import type { Metadata } from "next";
 import { getTranslations } from "next-intl/server";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { permissionsOf } from "@/lib/permissions";
 import { requirePageActor } from "@/lib/session";
+
+export async function generateMetadata(): Promise<Metadata> {
+  return { title: (await getTranslations("home"))("title") };
+}
 
 export default async function OverviewPage() {
   const actor = await requirePageActor();

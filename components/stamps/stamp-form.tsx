@@ -171,7 +171,7 @@ export function StampForm({
           {state.data?.lowCoverage ? (
             <label className="flex items-start gap-2 text-sm text-stone-800">
               <input type="checkbox" name="confirmLowCoverage" className="mt-0.5" />
-              {t("stamps.form.coverageKeepLow", { pct: state.values?.coveragePct ?? "" })}
+              {t("stamps.form.coverageKeepLow", { typed: state.values?.coveragePct ?? "" })}
             </label>
           ) : null}
         </div>

@@ -12,9 +12,13 @@ import { bump, findStamp, openCheckoutOf } from "./shared";
 
 // A stamp's condition path (sound → worn → needs repair → in repair → sound, or retired) and damage reports.
 
+/** The message names both conditions in the reader's language, never their stored codes. */
+const conditionChangeRefused = (from: Condition, to: Condition) =>
+  new AppError("conditionChange", { from: { key: `stamps.conditions.${from}` }, to: { key: `stamps.conditions.${to}` } }, { condition: ["errors.conditionChange"] });
+
 export async function checkConditionChange(tx: Transaction, stamp: Stamp, to: Condition) {
   const from = stamp.condition;
-  if (!canChangeCondition(from, to)) throw new AppError("conditionChange", { from, to }, { condition: ["errors.conditionChange"] });
+  if (!canChangeCondition(from, to)) throw conditionChangeRefused(from, to);
   if (needsToBeIn(to) && (await openCheckoutOf(tx, stamp.id))) throw new AppError("stampCheckedOut");
   return { from, to };
 }
@@ -32,7 +36,7 @@ export async function changeCondition(actor: Actor, code: string, input: Conditi
   assertCan(actor, "stamps:write");
   return db.transaction(async (tx) => {
     const stamp = await findStamp(tx, code, true);
-    if (stamp.condition === input.condition) throw new AppError("conditionChange", { from: stamp.condition, to: input.condition }, { condition: ["errors.conditionChange"] });
+    if (stamp.condition === input.condition) throw conditionChangeRefused(stamp.condition, input.condition);
     const change = await checkConditionChange(tx, stamp, input.condition);
     const [updated] = await tx.update(stamps).set({ condition: input.condition, ...bump }).where(eq(stamps.id, stamp.id)).returning();
     await recordConditionChange(tx, actor, stamp.id, change, input.note ?? null);

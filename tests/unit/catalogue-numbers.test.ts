@@ -1,0 +1,47 @@
+import { parse, TYPE, type MessageFormatElement } from "@formatjs/icu-messageformat-parser";
+import { describe, expect, it } from "vitest";
+import { catalogueFiles } from "@/lib/i18n/messages";
+import { translator } from "@/lib/i18n/translator";
+import { catalogueLeaves } from "../helpers/source-files";
+
+// ICU shows a number given to a plain argument `{n}` as JavaScript writes it (String(n): "1200.5"), not as the
+// reader's language does. So an argument that carries a number is written `{n, number}` (or a plural's `#`),
+// and then next-intl's formatter writes 1.200,5 in Indonesian. The arguments below carry text (names, codes,
+// dates and sizes the code has already formatted); any other plain argument is taken for a number and refused.
+const textArguments = new Set([
+  "actor", "borrower", "code", "codes", "column", "condition", "due", "dueOn", "email", "expected", "field", "fileName",
+  "from", "inviter", "keys", "kind", "location", "material", "materials", "message", "method", "name", "names", "note",
+  "now", "options", "outAt", "owner", "place", "problem", "ratio", "reason", "recorded", "reporter", "role", "roles",
+  "setting", "site", "size", "source", "status", "tag", "timeZone", "to", "type", "typed", "unit", "until", "url", "when",
+  "workstation",
+]);
+
+function plainArguments(elements: MessageFormatElement[], out: string[] = []): string[] {
+  for (const el of elements) {
+    if (el.type === TYPE.argument) out.push(el.value);
+    if (el.type === TYPE.select || el.type === TYPE.plural) for (const option of Object.values(el.options)) plainArguments(option.value, out);
+    if (el.type === TYPE.tag) plainArguments(el.children, out);
+  }
+  return out;
+}
+
+describe("numbers in messages", () => {
+  it.each(["en", "id"] as const)("go through the number format in %s", (language) => {
+    const problems: string[] = [];
+    for (const [key, message] of catalogueLeaves(Object.assign({}, ...catalogueFiles[language]))) {
+      for (const name of plainArguments(parse(message))) if (!textArguments.has(name)) problems.push(`${key}: {${name}} → {${name}, number}, or add "${name}" to the text arguments`);
+    }
+    expect(problems).toEqual([]);
+  });
+
+  it("come out in the reader's language", () => {
+    // CLDR: Indonesian writes a decimal comma and a dot for thousands.
+    expect(translator("id")("validation.tooSmall", { min: 1200.5 })).toContain("1.200,5");
+    expect(translator("en")("validation.tooSmall", { min: 1200.5 })).toContain("1,200.5");
+    expect(translator("id")("validation.numberAsWritten", { example: 1200.5 })).toContain("1.200,5");
+  });
+
+  it("are caught when written as a plain argument", () => {
+    expect(plainArguments(parse("At least {min} mm, {count, plural, other {# stamps of {name}}}"))).toEqual(["min", "name"]);
+  });
+});
