@@ -20,8 +20,10 @@ export interface Mail {
   subject: string;
   text: string;
   html: string;
+  /** The recipient's language (the templates set it): sent as Content-Language. */
+  language?: string;
 }
 
-export async function sendMail(mail: Mail) {
-  await mailer().sendMail({ from: env().MAIL_FROM, ...mail });
+export async function sendMail({ language, ...mail }: Mail) {
+  await mailer().sendMail({ from: env().MAIL_FROM, ...mail, ...(language ? { headers: { "Content-Language": language } } : {}) });
 }

@@ -3,15 +3,19 @@ import type { DateFormat, Translator } from "@/lib/i18n/translator";
 const escapeHtml = (s: string) =>
   s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
 
-function layout(paragraphs: string[], link: { href: string; label: string }, footer: string) {
+/**
+ * Every mail is written in its recipient's language: the caller passes a translator for it (the recipient's
+ * setting; the workshop's default, English, for someone without an account), never the sender's.
+ */
+function layout(t: Translator, paragraphs: string[], link: { href: string; label: string }, footer: string) {
   const body = paragraphs.map((p) => `<p>${escapeHtml(p)}</p>`).join("");
   const html =
-    `<div style="font-family:system-ui,sans-serif;max-width:560px;color:#1c1917">${body}` +
+    `<div lang="${t.locale}" style="font-family:system-ui,sans-serif;max-width:560px;color:#1c1917">${body}` +
     `<p><a href="${escapeHtml(link.href)}" style="display:inline-block;background:#7c2d12;color:#fff;padding:10px 16px;border-radius:6px;text-decoration:none">${escapeHtml(link.label)}</a></p>` +
     `<p style="font-size:13px;color:#57534e">${escapeHtml(link.href)}</p>` +
     `<p style="font-size:13px;color:#57534e">${escapeHtml(footer)}</p></div>`;
   const text = [...paragraphs, "", `${link.label}: ${link.href}`, "", footer].join("\n");
-  return { html, text };
+  return { html, text, language: t.locale };
 }
 
 /** Invitation with a set-password link (subject, text and HTML from the catalogue); times in the workshop's zone. */
@@ -19,6 +23,7 @@ export function invitationMail(t: Translator, d: DateFormat, p: { name: string; 
   return {
     subject: t("emails.invite.subject"),
     ...layout(
+      t,
       [t("emails.invite.greeting", { name: p.name }), t("emails.invite.body", { inviter: p.inviter, role: p.role })],
       { href: p.link, label: t("emails.invite.action") },
       t("emails.invite.expiry", { hours: p.hours, until: d.instant(p.expiresAt), timeZone: d.timeZone }),
@@ -30,6 +35,7 @@ export function passwordResetMail(t: Translator, d: DateFormat, p: { name: strin
   return {
     subject: t("emails.reset.subject"),
     ...layout(
+      t,
       [t("emails.reset.greeting", { name: p.name }), t("emails.reset.body")],
       { href: p.link, label: t("emails.reset.action") },
       t("emails.reset.expiry", { minutes: p.minutes, until: d.instant(p.expiresAt), timeZone: d.timeZone }),
@@ -42,6 +48,7 @@ export function damageReportMail(t: Translator, d: DateFormat, p: { code: string
   return {
     subject: t("stampEmails.damage.subject", { code: p.code }),
     ...layout(
+      t,
       [
         t("stampEmails.damage.greeting"),
         t("stampEmails.damage.body", { reporter: p.reporter, code: p.code, name: p.name, kind: p.kind, when: d.instant(p.at), timeZone: d.timeZone }),
@@ -58,6 +65,7 @@ export function overdueReminderMail(t: Translator, d: DateFormat, p: { borrower:
   return {
     subject: t("stampEmails.overdue.subject", { code: p.code }),
     ...layout(
+      t,
       [
         t("stampEmails.overdue.greeting", { name: p.borrower }),
         t("stampEmails.overdue.body", { code: p.code, name: p.name, dueOn: d.day(p.dueOn), outAt: d.instant(p.outAt), timeZone: d.timeZone, workstation: p.workstation }),

@@ -2,12 +2,14 @@ import { testEnv } from "./env";
 
 export interface Session {
   cookie: string;
+  /** The language cookie the sign-in set (lib/i18n/locale-cookie.ts), if any. */
+  locale?: string;
 }
 
 const cookiesOf = (response: Response) => response.headers.getSetCookie().map((c) => c.split(";")[0]);
 
 /** Signs in through the app's own Auth.js endpoints, as a browser would, and returns the session cookie. */
-export async function signIn(email: string, password: string): Promise<Session | null> {
+export async function signIn(email: string, password: string, options: { acceptLanguage?: string } = {}): Promise<Session | null> {
   const { appUrl } = testEnv();
   const csrf = await fetch(`${appUrl}/api/auth/csrf`);
   const { csrfToken } = (await csrf.json()) as { csrfToken: string };
@@ -15,11 +17,12 @@ export async function signIn(email: string, password: string): Promise<Session |
   const response = await fetch(`${appUrl}/api/auth/callback/credentials`, {
     method: "POST",
     redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: csrfCookies.join("; "), origin: appUrl },
+    headers: { "content-type": "application/x-www-form-urlencoded", cookie: csrfCookies.join("; "), origin: appUrl, ...(options.acceptLanguage ? { "accept-language": options.acceptLanguage } : {}) },
     body: new URLSearchParams({ csrfToken, email, password, callbackUrl: `${appUrl}/` }),
   });
   const session = cookiesOf(response).find((c) => c.includes("authjs.session-token="));
-  return session ? { cookie: session } : null;
+  const locale = cookiesOf(response).find((c) => c.startsWith("capgrid-locale="))?.split("=")[1];
+  return session ? { cookie: session, locale } : null;
 }
 
 interface CallOptions {

@@ -7,6 +7,8 @@ interface CapturedMail {
   html?: string;
   to: { address: string }[];
   time?: string;
+  /** Header names in lower case. */
+  headers?: Record<string, string>;
 }
 
 /** The newest mail the catcher holds for an address (and subject), waiting for it to arrive. */
