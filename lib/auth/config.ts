@@ -1,12 +1,13 @@
 import NextAuth, { CredentialsSignin } from "next-auth";
 import Credentials from "next-auth/providers/credentials";
 import "next-auth/jwt";
-import { headers } from "next/headers";
+import { cookies, headers } from "next/headers";
 import type { Role } from "@/db/schema";
 import { clientAddressHeader, normalizeAddress, serverMarkerVariable } from "@/lib/client-address";
 import { openSession, revokeSession, sessionLifetimeSeconds } from "@/lib/data/sessions";
 import { checkCredentials } from "@/lib/data/sign-in";
 import { localeAtSignIn } from "@/lib/data/users";
+import { localeCookie } from "@/lib/i18n/config";
 import { rememberLocale } from "@/lib/i18n/locale-cookie";
 import { parseInput } from "@/lib/validation/parse";
 import { signInSchema } from "@/lib/validation/users";
@@ -69,7 +70,8 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
         if (result.kind !== "ok") return null;
         const { user } = result;
         // The first sign-in takes the browser's language; from then on the cookie follows the user's setting.
-        await rememberLocale(await localeAtSignIn(user.id, (await headers()).get("accept-language")));
+        const browser = { cookie: (await cookies()).get(localeCookie)?.value, acceptLanguage: (await headers()).get("accept-language") };
+        await rememberLocale(await localeAtSignIn(user.id, browser));
         return { id: user.id, email: user.email, name: user.name, role: user.role, sessionVersion: user.sessionVersion };
       },
     }),

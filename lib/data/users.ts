@@ -7,7 +7,7 @@ import { hashPassword } from "@/lib/auth/passwords";
 import { hashSecret, newSecret } from "@/lib/auth/secrets";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
-import { negotiateLocale, pickLocale, type Locale } from "@/lib/i18n/config";
+import { isLocale, negotiateLocale, pickLocale, type Locale } from "@/lib/i18n/config";
 import { dateFormat, translator } from "@/lib/i18n/translator";
 import { sendMail } from "@/lib/mail";
 import { clearSignInLimits } from "./sign-in";
@@ -184,14 +184,16 @@ export async function chooseLocale(actor: Actor, locale: Locale): Promise<Locale
 }
 
 /**
- * The language of someone signing in. Until anyone has set it (source "default"), the first sign-in takes the
- * browser's language, or keeps the workshop's default when the browser names none of ours, and keeps it from
- * then on: a later sign-in on another device does not change it, the person's own choice does.
+ * The language of someone signing in. Until anyone has set it (source "default"), the first sign-in takes this
+ * browser's: the language its pages were showing (the cookie, e.g. switched on the sign-in page), else its
+ * Accept-Language, else the workshop's default; and keeps it from then on. A later sign-in on another device
+ * does not change it; the person's own choice does.
  */
-export async function localeAtSignIn(userId: string, acceptLanguage: string | null): Promise<Locale> {
+export async function localeAtSignIn(userId: string, browser: { cookie: string | undefined; acceptLanguage: string | null }): Promise<Locale> {
+  const fromBrowser = isLocale(browser.cookie) ? browser.cookie : negotiateLocale(browser.acceptLanguage);
   const [settled] = await db
     .update(users)
-    .set({ locale: negotiateLocale(acceptLanguage) ?? sql`${users.locale}`, localeSource: "browser" })
+    .set({ locale: fromBrowser ?? sql`${users.locale}`, localeSource: "browser" })
     .where(and(eq(users.id, userId), eq(users.localeSource, "default")))
     .returning({ locale: users.locale });
   if (settled) return settled.locale;

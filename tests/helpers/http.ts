@@ -9,7 +9,7 @@ export interface Session {
 const cookiesOf = (response: Response) => response.headers.getSetCookie().map((c) => c.split(";")[0]);
 
 /** Signs in through the app's own Auth.js endpoints, as a browser would, and returns the session cookie. */
-export async function signIn(email: string, password: string, options: { acceptLanguage?: string } = {}): Promise<Session | null> {
+export async function signIn(email: string, password: string, options: { acceptLanguage?: string; cookies?: string[] } = {}): Promise<Session | null> {
   const { appUrl } = testEnv();
   const csrf = await fetch(`${appUrl}/api/auth/csrf`);
   const { csrfToken } = (await csrf.json()) as { csrfToken: string };
@@ -17,7 +17,7 @@ export async function signIn(email: string, password: string, options: { acceptL
   const response = await fetch(`${appUrl}/api/auth/callback/credentials`, {
     method: "POST",
     redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: csrfCookies.join("; "), origin: appUrl, ...(options.acceptLanguage ? { "accept-language": options.acceptLanguage } : {}) },
+    headers: { "content-type": "application/x-www-form-urlencoded", cookie: [...csrfCookies, ...(options.cookies ?? [])].join("; "), origin: appUrl, ...(options.acceptLanguage ? { "accept-language": options.acceptLanguage } : {}) },
     body: new URLSearchParams({ csrfToken, email, password, callbackUrl: `${appUrl}/` }),
   });
   const session = cookiesOf(response).find((c) => c.includes("authjs.session-token="));

@@ -75,6 +75,13 @@ describe("the language of a person", () => {
     expect((await reloadUser(user.id)).locale).toBe("id");
   });
 
+  it("takes the language the browser's pages were showing, when it was switched before the first sign-in", async () => {
+    const user = await createUser("designer");
+    const session = (await signIn(user.email, user.password, { acceptLanguage: "en-US", cookies: ["capgrid-locale=id"] }))!;
+    expect(session.locale).toBe("id");
+    expect(await reloadUser(user.id)).toMatchObject({ locale: "id", localeSource: "browser" });
+  });
+
   it("is not taken from the browser once chosen, and the sign-in sets the cookie to it", async () => {
     const user = await createUser("designer", undefined, { locale: "en", localeSource: "person" });
     const session = (await signIn(user.email, user.password, { acceptLanguage: "id" }))!;
