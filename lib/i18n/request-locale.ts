@@ -1,5 +1,6 @@
 import "server-only";
 import { cookies, headers } from "next/headers";
+import { unstable_rethrow } from "next/navigation";
 import { currentActor } from "@/lib/session";
 import { type Locale, defaultLocale, isLocale, localeCookie, negotiateLocale } from "./config";
 
@@ -10,6 +11,8 @@ import { type Locale, defaultLocale, isLocale, localeCookie, negotiateLocale } f
  */
 export async function requestLocale(): Promise<Locale> {
   const actor = await currentActor().catch((error: unknown) => {
+    // Next's own signals (a page that turns out dynamic at build time) are not failures: let them through.
+    unstable_rethrow(error);
     console.error("the signed-in person could not be read; choosing the language without them", error);
     return null;
   });

@@ -1,4 +1,5 @@
 import type { AbstractIntlMessages } from "next-intl";
+import { unstable_rethrow } from "next/navigation";
 import { getRequestConfig } from "next-intl/server";
 import { workshopTimeZone } from "@/lib/data/settings";
 import { defaultTimeZone } from "@/lib/validation/settings";
@@ -11,6 +12,7 @@ async function timeZone(): Promise<string> {
   try {
     return await workshopTimeZone();
   } catch (error) {
+    unstable_rethrow(error);
     console.error("workshop settings could not be read; showing times in the default zone", error);
     return defaultTimeZone;
   }

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { numberInput, numberSymbols, readNumber } from "@/lib/contracts/form-input";
 import { locales } from "@/lib/i18n/config";
-import { seededUniform } from "../helpers/seeded-random";
+import { seededUniform } from "@/scripts/lib/seeded-random";
 
 // Numbers in forms are read as the person's language writes them. The signs come from Intl (the CLDR data of
 // the JavaScript engine), and the round trips below check readNumber against Intl.NumberFormat's own output.
