@@ -1,9 +1,14 @@
+import type { Metadata } from "next";
 import { getTranslations } from "next-intl/server";
 import Link from "next/link";
 import { AppHeader } from "@/components/shell/app-header";
 import { Logo } from "@/components/shell/logo";
 import { MessagePage } from "@/components/shell/message-page";
 import { currentActor } from "@/lib/session";
+
+export async function generateMetadata(): Promise<Metadata> {
+  return { title: (await getTranslations("common"))("notFoundTitle") };
+}
 
 /** An address no route knows: with the app's header and navigation for the signed-in, the way to sign in for others. */
 export default async function NotFound() {

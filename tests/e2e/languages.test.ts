@@ -55,7 +55,7 @@ describe("a keeper who switches to Bahasa Indonesia", () => {
     expect(await englishLeftOn(page)).toEqual([]);
 
     await page.goto(`${appUrl}/stamps`);
-    expect(await page.title()).toBe(`${id("stamps.title")} · ${id("app.name")}`);
+    await expect.poll(() => page.title()).toBe(`${id("stamps.title")} · ${id("app.name")}`);
     expect(await lang(page)).toBe("id");
 
     await page.goto(`${appUrl}/stamps/${code}`);
@@ -127,6 +127,10 @@ describe("a keeper who switches to Bahasa Indonesia", () => {
     const elsewhere = await signedIn(keeper);
     expect(await lang(elsewhere)).toBe("id");
     expect(await englishLeftOn(elsewhere)).toEqual([]);
+    // An address nobody knows answers in Indonesian too, title included.
+    expect((await elsewhere.goto(`${appUrl}/tidak-ada-di-sini`))?.status()).toBe(404);
+    await expect.poll(() => elsewhere.title()).toBe(`${id("common.notFoundTitle")} · ${id("app.name")}`);
+    expect(await englishLeftOn(elsewhere)).toEqual([]);
     await elsewhere.context().close();
     await page.context().close();
   });
@@ -141,7 +145,7 @@ describe("someone who works in English", () => {
     expect(await lang(colleague)).toBe("id");
 
     const page = await signedIn(await createUser("keeper"));
-    expect(await page.title()).toBe("Overview · Capgrid");
+    await expect.poll(() => page.title()).toBe("Overview · Capgrid");
     await page.goto(`${appUrl}/stamps/${code}`);
     expect(await lang(page)).toBe("en");
     await page.getByRole("form", { name: "Check out" }).waitFor();

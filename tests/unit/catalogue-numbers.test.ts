@@ -11,7 +11,7 @@ import { catalogueLeaves } from "../helpers/source-files";
 const textArguments = new Set([
   "actor", "borrower", "code", "codes", "column", "condition", "due", "dueOn", "email", "expected", "field", "fileName",
   "from", "inviter", "keys", "kind", "location", "material", "materials", "message", "method", "name", "names", "note",
-  "now", "options", "outAt", "owner", "place", "problem", "ratio", "reason", "recorded", "reporter", "role", "roles",
+  "now", "options", "outAt", "owner", "place", "seenAt", "problem", "ratio", "reason", "recorded", "reporter", "role", "roles",
   "setting", "site", "size", "source", "status", "tag", "timeZone", "to", "type", "typed", "unit", "until", "url", "when",
   "workstation",
 ]);
@@ -25,6 +25,19 @@ function plainArguments(elements: MessageFormatElement[], out: string[] = []): s
   return out;
 }
 
+/**
+ * Text that reads ", number": a branch of a plural or select is text already, so `one {is, number}` shows
+ * "is, number" on screen. Such a word wants no number format.
+ */
+function wordsTakenForNumbers(elements: MessageFormatElement[], out: string[] = []): string[] {
+  for (const el of elements) {
+    if (el.type === TYPE.literal) for (const m of el.value.matchAll(/([\p{L}\p{N}_-]+), number\b/gu)) out.push(m[1]);
+    if (el.type === TYPE.select || el.type === TYPE.plural) for (const option of Object.values(el.options)) wordsTakenForNumbers(option.value, out);
+    if (el.type === TYPE.tag) wordsTakenForNumbers(el.children, out);
+  }
+  return out;
+}
+
 describe("numbers in messages", () => {
   it.each(["en", "id"] as const)("go through the number format in %s", (language) => {
     const problems: string[] = [];
@@ -34,11 +47,24 @@ describe("numbers in messages", () => {
     expect(problems).toEqual([]);
   });
 
+  it.each(["en", "id"] as const)("keep the words of plural branches as words in %s", (language) => {
+    const problems: string[] = [];
+    for (const [key, message] of catalogueLeaves(Object.assign({}, ...catalogueFiles[language]))) {
+      for (const name of wordsTakenForNumbers(parse(message))) problems.push(`${key}: "${name}, number" is text in a branch: write "${name}"`);
+    }
+    expect(problems).toEqual([]);
+  });
+
   it("come out in the reader's language", () => {
     // CLDR: Indonesian writes a decimal comma and a dot for thousands.
     expect(translator("id")("validation.tooSmall", { min: 1200.5 })).toContain("1.200,5");
     expect(translator("en")("validation.tooSmall", { min: 1200.5 })).toContain("1,200.5");
     expect(translator("id")("validation.numberAsWritten", { example: 1200.5 })).toContain("1.200,5");
+  });
+
+  it("catch a branch's word written as a number argument", () => {
+    expect(wordsTakenForNumbers(parse("{count, plural, one {is, number} other {# are}}"))).toEqual(["is"]);
+    expect(wordsTakenForNumbers(parse("{count, plural, one {# is} other {{total, number} are}}, {n, number}"))).toEqual([]);
   });
 
   it("are caught when written as a plain argument", () => {

@@ -280,7 +280,7 @@ export function StockTakeCounter({ initial, canWrite }: { initial: StockTakeDto;
                 <ul className="mt-1 space-y-1">
                   {take.misplaced.map((m) => (
                     <li key={m.code}>
-                      {stampLink(m.code)} <span className="text-stone-600">{t("stockTake.recordedSeen", { recorded: place(m.recorded), seen: place(m.seenAt) })}</span>
+                      {stampLink(m.code)} <span className="text-stone-600">{t("stockTake.recordedSeen", { recorded: place(m.recorded), seenAt: place(m.seenAt) })}</span>
                     </li>
                   ))}
                 </ul>
@@ -290,7 +290,7 @@ export function StockTakeCounter({ initial, canWrite }: { initial: StockTakeDto;
                 <ul className="mt-1 space-y-1">
                   {take.unexpected.map((u) => (
                     <li key={u.code}>
-                      {stampLink(u.code)} <span className="text-stone-600">{t(`stockTake.reasons.${u.reason}`, { recorded: place(u.recorded), seen: place(u.seenAt) })}</span>
+                      {stampLink(u.code)} <span className="text-stone-600">{t(`stockTake.reasons.${u.reason}`, { recorded: place(u.recorded), seenAt: place(u.seenAt) })}</span>
                     </li>
                   ))}
                 </ul>
