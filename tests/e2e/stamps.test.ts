@@ -186,7 +186,8 @@ describe("the stamp table", () => {
     // Search narrows further; a search that matches nothing shows the empty state.
     await page.getByLabel("Search").fill("kawung");
     const kawung = atSite.filter((s) => /kawung/i.test(s.name) || (s.tags ?? []).includes("kawung") || /kawung/i.test(s.maker ?? ""));
-    await expect.poll(() => count.textContent()).toBe(`Stamps 1–${Math.min(25, kawung.length)} of ${kawung.length}`);
+    // The search waits for typing to pause before it asks the server: more than poll's default second on a busy machine.
+    await expect.poll(() => count.textContent(), { timeout: 10_000 }).toBe(`Stamps 1–${Math.min(25, kawung.length)} of ${kawung.length}`);
     await page.getByLabel("Search").fill("no such motif at all");
     await page.getByText("No stamp matches these filters.").waitFor();
     await page.getByRole("button", { name: "Clear all filters" }).first().click();
