@@ -1,9 +1,7 @@
 import { ZodError, type z } from "zod";
-import { AppError, issueMessage, issuePath, statusOf, ValidationFailed, type FieldErrors, type FieldMessage, type MessageValues } from "@/lib/errors";
+import { AppError, InputRefused, issueMessage, issuePath, statusOf, ValidationFailed, type FieldErrors, type FieldMessage, type InputIssue, type MessageValues } from "@/lib/errors";
 import type { Translator } from "@/lib/i18n/translator";
-import { LayoutInputError } from "@/lib/layout/errors";
 import { ScanRejected } from "@/lib/scans/errors";
-import { WaxInputError } from "@/lib/wax/errors";
 
 /** The JSON error body every answer uses: `{ error: { code, message, fields?, …details } }`. */
 export interface ErrorBody {
@@ -85,12 +83,11 @@ export function errorAnswer(error: unknown, t: Translator): ErrorAnswer {
     return { status: error.status, body: { error: { code: error.code, message: t(`errors.${error.code}`), fields: issueFields(error.issues, t) } } };
   }
   // The engines refuse input they cannot compute with: 422, one message per field.
-  if (error instanceof LayoutInputError || error instanceof WaxInputError) {
-    const issues = error instanceof LayoutInputError ? error.issues.map((i) => ({ field: i.field, key: i.messageKey, params: i.params })) : error.issues.map((i) => ({ field: i.field, key: i.code, params: i.params }));
+  if (error instanceof InputRefused) {
     const fields: FieldErrors = {};
-    for (const issue of issues) {
+    for (const issue of error.issues as InputIssue[]) {
       const values = Object.fromEntries(Object.entries(issue.params).map(([k, v]) => [k, typeof v === "boolean" ? String(v) : v]));
-      (fields[issue.field || "_form"] ??= []).push(say(t, issue.key, values));
+      (fields[issue.field || "_form"] ??= []).push(say(t, issue.messageKey ?? issue.code, values));
     }
     return { status: statusOf("unprocessable"), body: { error: { code: "unprocessable", message: t("errors.unprocessable"), fields } } };
   }

@@ -117,6 +117,36 @@ export class ValidationFailed extends AppError {
   }
 }
 
+/** One thing a domain refuses about its input: the field's path, a stable code, the values for its message. */
+export interface InputIssue {
+  field: string;
+  code: string;
+  params: Record<string, number | string | boolean>;
+  /** The catalogue key when it is not the code itself (the layout engine's `validation.*` / `layout.*`). */
+  messageKey?: string;
+}
+
+/**
+ * What a pure domain throws for input it cannot compute with (the layout engine, the wax estimator):
+ * every issue found, and the first one's field, code and params for convenience. No status, no text:
+ * the error body answers it with 422 and one translated message per field.
+ */
+export class InputRefused<I extends InputIssue = InputIssue> extends Error {
+  readonly field: string;
+  readonly code: string;
+  readonly params: I["params"];
+  readonly issues: I[];
+
+  constructor(issues: I[]) {
+    const first = issues[0];
+    super(`${first.code} at ${first.field}`);
+    this.field = first.field;
+    this.code = first.code;
+    this.params = first.params;
+    this.issues = issues;
+  }
+}
+
 type RawIssue = z.core.$ZodRawIssue | z.core.$ZodIssue;
 
 /**

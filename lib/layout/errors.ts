@@ -1,3 +1,5 @@
+import { InputRefused } from "@/lib/errors";
+
 /** One problem with a layout input: the field path (e.g. "stamp.widthMm"), a stable code and its parameters. */
 export interface LayoutIssue {
   field: string;
@@ -7,26 +9,14 @@ export interface LayoutIssue {
   params: Record<string, number | string | boolean>;
 }
 
-/**
- * Thrown by the layout engine for input it cannot lay out. Carries every issue found; `field`, `code`
- * and `params` repeat the first one. The API layer answers it with 422 and catalogue messages.
- */
-export class LayoutInputError extends Error {
-  readonly field: string;
-  readonly code: string;
+/** Thrown by the layout engine for input it cannot lay out; `messageKey` repeats the first issue's key. */
+export class LayoutInputError extends InputRefused<LayoutIssue> {
   readonly messageKey: string;
-  readonly params: Record<string, number | string | boolean>;
-  readonly issues: LayoutIssue[];
 
   constructor(issues: LayoutIssue[]) {
-    const first = issues[0];
-    super(`${first.messageKey} at ${first.field}`);
+    super(issues);
     this.name = "LayoutInputError";
-    this.field = first.field;
-    this.code = first.code;
-    this.messageKey = first.messageKey;
-    this.params = first.params;
-    this.issues = issues;
+    this.messageKey = issues[0].messageKey;
   }
 }
 

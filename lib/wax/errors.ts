@@ -1,5 +1,5 @@
 import type { z } from "zod";
-import { issueKey, issueMessage } from "@/lib/errors";
+import { InputRefused, issueKey, issueMessage } from "@/lib/errors";
 
 export type WaxParams = Record<string, number | string | boolean>;
 
@@ -20,24 +20,11 @@ export interface WaxWarning {
   field?: string;
 }
 
-/**
- * Thrown by lib/wax for input it refuses. Carries every issue found; `field`, `code` and `params` repeat the
- * first one. The API layer chooses the status and translates `code` with `params`.
- */
-export class WaxInputError extends Error {
-  readonly field: string;
-  readonly code: string;
-  readonly params: WaxParams;
-  readonly issues: WaxIssue[];
-
+/** Thrown by lib/wax for input it refuses; `code` is the catalogue key. */
+export class WaxInputError extends InputRefused<WaxIssue> {
   constructor(issues: WaxIssue[]) {
-    const first = issues[0];
-    super(`${first.code} at ${first.field}`);
+    super(issues);
     this.name = "WaxInputError";
-    this.field = first.field;
-    this.code = first.code;
-    this.params = first.params;
-    this.issues = issues;
   }
 }
 

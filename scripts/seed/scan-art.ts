@@ -1,5 +1,6 @@
 import sharp from "sharp";
 import { checkContainer } from "@/lib/scans/containers";
+import { seededUniform } from "../lib/seeded-random";
 
 // Invented motif artwork for demo scans and benchmarks: plain geometry (ellipses, petals, curves, stars,
 // bands) placed by a seeded random generator. Nothing here copies any existing artwork.
@@ -19,17 +20,6 @@ export interface MotifOptions {
   style?: ScanStyle;
 }
 
-/** mulberry32: a small deterministic generator, so a seed always draws the same motif. */
-function generator(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const f = (n: number) => n.toFixed(2);
 
@@ -169,7 +159,7 @@ const drawers: Record<MotifFamily, (w: number, h: number, rnd: () => number) => 
  */
 export function motifSvg(options: MotifOptions): string {
   const { widthMm: w, heightMm: h } = options;
-  const rnd = generator(options.seed);
+  const rnd = seededUniform(options.seed);
   const family = options.family ?? motifFamilies[Math.floor(rnd() * motifFamilies.length)];
   const drawing = drawers[family](w, h, rnd);
   const face = options.style === "face";

@@ -1,6 +1,6 @@
 import { Matrix, inverse, solve } from "ml-matrix";
 import { describe, expect, it } from "vitest";
-import { seededNormal, seededUniform } from "@/tests/helpers/seeded-random";
+import { seededNormal, seededUniform } from "@/scripts/lib/seeded-random";
 import {
   WaxInputError,
   calibrateRates,
