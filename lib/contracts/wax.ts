@@ -285,7 +285,7 @@ const num = (form: FormData, name: string) => formNumber(form, name) ?? undefine
 const converted = (value: number | undefined, imperial: boolean, toMetric: (v: number) => number) => (value === undefined || Number.isNaN(value) || !imperial ? value : toMetric(value));
 const temp = (form: FormData, name: string) => converted(num(form, name), imperialOf(form), fahrenheitToCelsius);
 
-/** Indices of the recipe form's component rows that have anything typed (rows named components.<i>.material / .pct). */
+/** The recipe form's component rows in order (named components.<i>.material / .pct); an empty row is kept, so its message stands beside it. */
 function componentRows(form: FormData): { material: string; pct: number | undefined }[] {
   const indices = new Set<number>();
   for (const key of form.keys()) {
@@ -294,8 +294,7 @@ function componentRows(form: FormData): { material: string; pct: number | undefi
   }
   return [...indices]
     .sort((a, b) => a - b)
-    .map((i) => ({ material: formText(form, `components.${i}.material`).trim(), pct: num(form, `components.${i}.pct`) }))
-    .filter((c) => c.material !== "" || c.pct !== undefined);
+    .map((i) => ({ material: formText(form, `components.${i}.material`).trim(), pct: num(form, `components.${i}.pct`) }));
 }
 
 /** The recipe form (working range in the person's unit; a hidden unitSystem) → createRecipeSchema / updateRecipeSchema. */
