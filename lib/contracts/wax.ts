@@ -268,13 +268,13 @@ export const waxPages = {
   newRecipe: "/wax/recipes/new",
   recipe: (id: string) => `/wax/recipes/${enc(id)}`,
   editRecipe: (id: string) => `/wax/recipes/${enc(id)}/edit`,
+  compareBase: "/wax/recipes/compare",
   compare: (a: string, b?: string) => withQuery("/wax/recipes/compare", new URLSearchParams(b ? { a, b } : { a })),
   materials: "/wax/materials",
   material: (id: string) => `/wax/materials/${enc(id)}`,
   estimates: "/wax/estimates",
   uses: "/wax/uses",
   purchase: "/wax/purchase",
-  purchasePrint: "/wax/purchase/print",
 };
 
 // --- form input: the wax room's forms → their schemas' input (°C, kg, g) ---------------------------------------

@@ -83,8 +83,10 @@ describe.each(roles)("as %s", (role) => {
   });
 
   it(`changes a material ${writes ? "(allowed)" : "— 403, version unchanged"}`, async () => {
-    const version = await versionOf(waxMaterials, fixture.materialId);
-    const res = await api("PATCH", `/api/v1/wax/materials/${fixture.materialId}`, { session: session(), body: { version, reorderLevelKg: 20 + roles.indexOf(role) } });
+    const [material] = await db().select().from(waxMaterials).where(eq(waxMaterials.id, fixture.materialId));
+    const version = material.version;
+    // A value the material does not have yet: a save that changes nothing keeps the version.
+    const res = await api("PATCH", `/api/v1/wax/materials/${fixture.materialId}`, { session: session(), body: { version, reorderLevelKg: material.reorderLevelKg + 1 } });
     expect(res.status).toBe(writes ? 200 : 403);
     expect(await versionOf(waxMaterials, fixture.materialId)).toBe(version! + (writes ? 1 : 0));
   });
@@ -137,7 +139,7 @@ describe.each(roles)("as %s", (role) => {
   it(`changes the wax defaults ${writes ? "(allowed)" : "— 403, settings unchanged"}`, async () => {
     const [before] = await db().select().from(workshopSettings);
     const version = before?.version ?? 1;
-    const res = await api("PATCH", "/api/v1/wax/defaults", { session: session(), body: { version, waxRateGPerM2: 90 + roles.indexOf(role) } });
+    const res = await api("PATCH", "/api/v1/wax/defaults", { session: session(), body: { version, waxRateGPerM2: 91 + roles.indexOf(role) } });
     expect(res.status).toBe(writes ? 200 : 403);
     const [after] = await db().select().from(workshopSettings);
     expect(after?.version ?? 1).toBe(version + (writes ? 1 : 0));

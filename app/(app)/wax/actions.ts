@@ -28,7 +28,6 @@ import {
   updateEstimate,
   updateMaterial,
   updateRecipe,
-  withdrawWaxUse,
 } from "@/lib/data/wax";
 import { requirePermission } from "@/lib/session";
 import { z } from "@/lib/zod";
@@ -43,7 +42,6 @@ import {
   updateEstimateSchema,
   updateMaterialSchema,
   updateRecipeSchema,
-  withdrawWaxUseSchema,
 } from "@/lib/validation/wax";
 
 const idOf = (formData: FormData) => z.uuid().safeParse(formText(formData, "id")).data ?? "00000000-0000-4000-8000-000000000000";
@@ -220,14 +218,6 @@ export async function recordWaxUseAction(_prev: FormState, formData: FormData): 
     const use = await recordWaxUse(await requirePermission("wax:write"), input);
     return { status: "success", message: t("recorded", { grams: Math.round(use.grams), recipe: use.recipe.name }) };
   }, waxUseFormInput);
-  if (state.status === "success") refreshWax();
-  return state;
-}
-
-export async function withdrawWaxUseAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  const state = await runForm(formData, withdrawWaxUseSchema, async (input) => {
-    await withdrawWaxUse(await requirePermission("wax:write"), idOf(formData), input);
-  }, (f) => ({ reason: formText(f, "reason") }));
   if (state.status === "success") refreshWax();
   return state;
 }
