@@ -1,12 +1,14 @@
 import { eq } from "drizzle-orm";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { waxMaterials, waxRecipes } from "@/db/schema";
+import { waxMaterials, waxRecipes, waxUses } from "@/db/schema";
 import { seedWax } from "@/scripts/seed/wax";
 import { launchBrowser, signInThroughPage } from "../helpers/browser";
 import { createUser, db } from "../helpers/db";
 import { testEnv } from "../helpers/env";
+import { checkAccessibility } from "../helpers/accessibility";
 import { expectMessageBeside } from "../helpers/forms";
+import { api, signIn } from "../helpers/http";
 import { uniquePrefix } from "../helpers/stamps";
 
 // Every form of the wax room, each with valid input (the result shows) and invalid input (the message stands
@@ -19,10 +21,12 @@ const dryName = "Dry-season stamp wax";
 const go = (path: string) => page.goto(`${testEnv().appUrl}${path}`);
 const recipeRow = async (name: string) => (await db().select().from(waxRecipes).where(eq(waxRecipes.name, name)))[0];
 
+let waxmaster: Awaited<ReturnType<typeof createUser>>;
+
 beforeAll(async () => {
   browser = await launchBrowser();
   await seedWax(db());
-  const waxmaster = await createUser("waxmaster");
+  waxmaster = await createUser("waxmaster");
   page = await (await browser.newContext()).newPage();
   await signInThroughPage(page, waxmaster.email, waxmaster.password);
 });
@@ -47,6 +51,7 @@ describe("the recipe form", () => {
     await expectMessageBeside(form.getByLabel("Name"), /Required/);
     await expect.poll(() => page.locator("#recipe-components-error").textContent()).toMatch(/add up to 90 %; they must add up to 100 %/);
     expect(await form.getByLabel("Share (%), line 2").inputValue()).toBe("30");
+    await checkAccessibility(page, "with the recipe form showing its errors");
     expect(await recipeRow(name)).toBeUndefined();
 
     await form.getByLabel("Name").fill(name);
@@ -185,6 +190,7 @@ describe("estimates and wax uses", () => {
     await form.getByRole("button", { name: "Estimate", exact: true }).click();
     await page.getByTestId("estimate-result").waitFor();
     await page.getByTestId("band-picture").waitFor();
+    await checkAccessibility(page, "with an estimate's result and band picture");
     expect(await page.getByTestId("kg-new").textContent()).toMatch(/kg$/);
   });
 
@@ -197,8 +203,59 @@ describe("estimates and wax uses", () => {
     await form.getByRole("button", { name: "Record the use" }).click();
     await expectMessageBeside(form.getByLabel("Metres waxed"), /Required|number/);
     expect(await form.getByLabel("Wax used (g)").inputValue()).toBe("1200");
+    await checkAccessibility(page, "with the wax use form showing its errors and the calibration chart drawn");
     await form.getByLabel("Metres waxed").fill("12");
     await form.getByRole("button", { name: "Record the use" }).click();
     await page.getByText(`Recorded: 1200 g of ${dryName}.`).waitFor();
+  });
+});
+
+describe("withdrawing a wax use", () => {
+  it("asks first; without a reason the message stands beside the box; with one the use leaves the list and the calibration", async () => {
+    const session = (await signIn(waxmaster.email, waxmaster.password))!;
+    const recipe = await recipeRow(dryName);
+    const note = `${prefix} mistaken use`;
+    const recorded = await api("POST", "/api/v1/wax/uses", { session, body: { recipeId: recipe.id, usedOn: new Date().toISOString().slice(0, 10), waxedAreaPerMetreM2: 0.5, metres: 4, gramsUsed: 300, note } });
+    expect(recorded.status, JSON.stringify(recorded.body)).toBe(201);
+    const id: string = recorded.body.use.id;
+    await go("/wax/uses");
+    const row = page.getByTestId(`wax-use-${id}`);
+    const reason = row.getByRole("textbox");
+    await reason.waitFor();
+    page.once("dialog", (dialog) => void dialog.accept());
+    await row.getByRole("button", { name: "Withdraw" }).click();
+    await expectMessageBeside(reason, /Required/);
+    expect((await db().select().from(waxUses).where(eq(waxUses.id, id)))[0].withdrawnAt).toBeNull();
+
+    await reason.fill("weighed the wrong pot");
+    page.once("dialog", (dialog) => void dialog.accept());
+    await row.getByRole("button", { name: "Withdraw" }).click();
+    await expect.poll(() => row.count()).toBe(0);
+    const [after] = await db().select().from(waxUses).where(eq(waxUses.id, id));
+    expect(after.withdrawnAt).not.toBeNull();
+    expect(after.withdrawnReason).toBe("weighed the wrong pot");
+  });
+});
+
+describe("the defaults of new estimates", () => {
+  it("a rate of 0 gets its message beside the field and keeps what was typed; a change is saved (and put back)", async () => {
+    const session = (await signIn(waxmaster.email, waxmaster.password))!;
+    const before = (await api("GET", "/api/v1/wax/defaults", { session })).body.defaults;
+    try {
+      await go("/wax/estimates");
+      const form = page.getByRole("form", { name: "Defaults for new estimates" });
+      await form.getByLabel("Rate before calibration (g/m²)").fill("0");
+      await form.getByLabel("Losses (%)").fill("4");
+      await form.getByRole("button", { name: "Save defaults" }).click();
+      await expectMessageBeside(form.getByLabel("Rate before calibration (g/m²)"), /above 0/);
+      expect(await form.getByLabel("Losses (%)").inputValue()).toBe("4");
+      await form.getByLabel("Rate before calibration (g/m²)").fill(String(before.waxRateGPerM2));
+      await form.getByRole("button", { name: "Save defaults" }).click();
+      await form.getByText("Defaults saved.").waitFor();
+      expect((await api("GET", "/api/v1/wax/defaults", { session })).body.defaults.waxLossPct).toBe(4);
+    } finally {
+      const now = (await api("GET", "/api/v1/wax/defaults", { session })).body.defaults;
+      await api("PATCH", "/api/v1/wax/defaults", { session, body: { version: now.version, waxRateGPerM2: before.waxRateGPerM2, waxLossPct: before.waxLossPct, waxRecoveryPct: before.waxRecoveryPct } });
+    }
   });
 });

@@ -12,6 +12,7 @@ import {
   materialFormInput,
   movementFormInput,
   recipeFormInput,
+  waxDefaultsFormInput,
   waxPages,
   waxUseFormInput,
 } from "@/lib/contracts/wax";
@@ -28,9 +29,12 @@ import {
   updateEstimate,
   updateMaterial,
   updateRecipe,
+  updateWaxDefaults,
+  withdrawWaxUse,
 } from "@/lib/data/wax";
 import { requirePermission } from "@/lib/session";
 import { z } from "@/lib/zod";
+import { updateWaxDefaultsSchema } from "@/lib/validation/settings";
 import {
   createMaterialSchema,
   createRecipeSchema,
@@ -42,6 +46,7 @@ import {
   updateEstimateSchema,
   updateMaterialSchema,
   updateRecipeSchema,
+  withdrawWaxUseSchema,
 } from "@/lib/validation/wax";
 
 const idOf = (formData: FormData) => z.uuid().safeParse(formText(formData, "id")).data ?? "00000000-0000-4000-8000-000000000000";
@@ -218,6 +223,29 @@ export async function recordWaxUseAction(_prev: FormState, formData: FormData): 
     const use = await recordWaxUse(await requirePermission("wax:write"), input);
     return { status: "success", message: t("recorded", { grams: Math.round(use.grams), recipe: use.recipe.name }) };
   }, waxUseFormInput);
+  if (state.status === "success") refreshWax();
+  return state;
+}
+
+/** Withdraws a mistaken wax use with its reason: its wax back into stock, its impressions back, out of the calibration. */
+export async function withdrawWaxUseAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  const t = await getTranslations("waxRoom.use");
+  const state = await runForm(formData, withdrawWaxUseSchema, async (input) => {
+    await withdrawWaxUse(await requirePermission("wax:write"), idOf(formData), input);
+    return { status: "success", message: t("withdrawn") };
+  }, (f) => ({ reason: formText(f, "reason") }));
+  if (state.status === "success") refreshWax();
+  return state;
+}
+
+// --- the defaults of new estimates ----------------------------------------------------------
+
+export async function updateWaxDefaultsAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  const t = await getTranslations("waxRoom.defaults");
+  const state = await runForm(formData, updateWaxDefaultsSchema, async (input) => {
+    await updateWaxDefaults(await requirePermission("wax:write"), input);
+    return { status: "success", message: t("saved") };
+  }, waxDefaultsFormInput);
   if (state.status === "success") refreshWax();
   return state;
 }

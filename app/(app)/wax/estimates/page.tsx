@@ -2,11 +2,12 @@ import type { Metadata } from "next";
 import { getTranslations } from "next-intl/server";
 import { Forbidden } from "@/components/shell/forbidden";
 import { PageHeader, Panel } from "@/components/ui/panel";
+import { WaxDefaultsForm } from "@/components/wax/defaults-form";
 import { EstimateForm } from "@/components/wax/estimate-form";
 import { getCalibration, getWaxDefaults, listEstimates, listWaxUses, planChoices, recipeChoices } from "@/lib/data/wax";
 import { can } from "@/lib/permissions";
 import { requirePageActor } from "@/lib/session";
-import { estimateAction } from "../actions";
+import { estimateAction, updateWaxDefaultsAction } from "../actions";
 import { EstimatesTable } from "./estimates-table";
 
 export async function generateMetadata(): Promise<Metadata> {
@@ -48,6 +49,11 @@ export default async function WaxEstimatesPage() {
         <Panel title={t("estimates.title")} intro={t("estimates.intro")}>
           <EstimatesTable estimates={estimates} canWrite={canWrite} unitSystem={actor.unitSystem} />
         </Panel>
+        {canWrite ? (
+          <Panel title={t("defaults.title")} intro={t("defaults.intro")}>
+            <WaxDefaultsForm action={updateWaxDefaultsAction} defaults={defaults} />
+          </Panel>
+        ) : null}
       </div>
     </>
   );
