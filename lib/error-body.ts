@@ -33,6 +33,23 @@ function say(t: Translator, key: string, values: MessageValues): string {
 }
 
 /**
+ * A caution or refusal that is part of an answer rather than an error (a recipe's fume warning, an estimate
+ * outside the published band): the same data, with its message in the caller's language added beside the code.
+ * Walks plain objects and arrays; any object with a string `code` and an object `params` gets a `message`.
+ */
+export function withMessages<T>(value: T, t: Translator): T {
+  if (Array.isArray(value)) return value.map((v) => withMessages(v, t)) as T;
+  if (!value || typeof value !== "object" || value instanceof Date) return value;
+  const entries = Object.entries(value as Record<string, unknown>).map(([k, v]) => [k, withMessages(v, t)] as const);
+  const out = Object.fromEntries(entries) as Record<string, unknown>;
+  if (typeof out.code === "string" && out.params && typeof out.params === "object" && !Array.isArray(out.params)) {
+    const values = Object.fromEntries(Object.entries(out.params as Record<string, unknown>).map(([k, v]) => [k, typeof v === "number" || typeof v === "string" ? v : String(v)]));
+    out.message = say(t, out.code, values);
+  }
+  return out as T;
+}
+
+/**
  * Translated messages per field for zod issues: the one issue → message path of the app. Two checks of one
  * field may fail with the same message (a pattern and a refinement): it is listed once.
  */

@@ -38,6 +38,11 @@ export const errorStatus = {
   scanUploadMissing: 409,
   settingsConflict: 409,
   lastAdmin: 409,
+  materialTaken: 409,
+  recipeNameTaken: 409,
+  recipeInUse: 409,
+  recipeArchived: 409,
+  waxUseWithdrawn: 409,
   internal: 500,
 } as const;
 

@@ -18,6 +18,7 @@ const dots: Record<string, string> = {
   twin_linked: "bg-soga-500",
   seen_in_stock_take: "bg-stone-500",
   scanned: "bg-stone-500",
+  impressions_added: "bg-stone-400",
 };
 
 const lengthFields = new Set(["widthMm", "heightMm", "stripDepthMm"]);
@@ -85,6 +86,10 @@ export async function StampHistory({ events, unitSystem }: { events: StampEventD
         return e.to ? { text: t("stamps.history.twinLinked", { actor: e.actorName, code: e.to }) } : { text: t("stamps.history.twinUnlinked", { actor: e.actorName, code: e.from ?? none }) };
       case "scanned":
         return { text: t("stamps.history.scanned", { actor: e.actorName, kind: t(d.kind === "print" ? "scans.kindShort.print" : "scans.kindShort.face") }) };
+      case "impressions_added": {
+        const count = Math.abs(Number(d.impressions ?? e.to ?? 0));
+        return { text: d.withdrawn || Number(d.impressions) < 0 ? t("stamps.history.impressionsWithdrawn", { actor: e.actorName, count }) : t("stamps.history.impressionsAdded", { actor: e.actorName, count }) };
+      }
       case "seen_in_stock_take":
         return { text: t("stamps.history.seen", { actor: e.actorName, place: e.to ?? none }) };
       default:

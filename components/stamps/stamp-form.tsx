@@ -149,9 +149,15 @@ export function StampForm({
         ) : (
           <p className="self-center text-sm text-stone-600 md:mt-5">{t("stamps.form.conditionElsewhere")}</p>
         )}
-        <Field id="stamp-impressions" label={t("stamps.fields.impressionsCount")} errors={e.impressionsCount}>
-          {(aria) => <input {...aria} name="impressionsCount" inputMode="numeric" defaultValue={v("impressionsCount", String(initial.impressionsCount))} />}
-        </Field>
+        {mode === "edit" ? (
+          <div className="space-y-1">
+            <p className="block text-sm font-medium text-stone-800">{t("stamps.fields.impressionsCount")}</p>
+            <p className="text-sm text-stone-900" data-testid="impressions-count">
+              {t("stamps.form.impressionsCount", { count: initial.impressionsCount })}
+            </p>
+            <p className="text-xs text-stone-500">{t("stamps.form.impressionsReadOnly")}</p>
+          </div>
+        ) : null}
       </fieldset>
 
       <fieldset className="grid gap-4 md:grid-cols-3">

@@ -19,6 +19,7 @@ export const stampEventKindEnum = pgEnum("stamp_event_kind", [
   "twin_linked",
   "seen_in_stock_take",
   "scanned",
+  "impressions_added",
 ]);
 export const stockTakeStatusEnum = pgEnum("stock_take_status", ["open", "closed"]);
 

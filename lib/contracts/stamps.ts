@@ -200,7 +200,6 @@ export function stampFormInput(form: FormData, mode: "create" | "update", locale
     // The form takes %, the schema a ratio 0–1.
     coverageRatio: form.get("coveragePct") !== null ? (pct === null || Number.isNaN(pct) ? pct : pct / 100) : undefined,
     outlinePath: formText(form, "outlinePath").trim() || null,
-    impressionsCount: required(number("impressionsCount")) ?? 0,
     notes: formText(form, "notes"),
     tags: formText(form, "tags")
       .split(",")

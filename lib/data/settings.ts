@@ -36,6 +36,12 @@ async function readRow() {
  */
 export const workshopSettings = cache(async (): Promise<WorkshopSettings> => workshopSettingsSchema.parse((await readRow())?.values ?? {}));
 
+/** The settings and their version read now, past the per-request cache (after a save in the same request). */
+export async function currentSettings(): Promise<{ settings: WorkshopSettings; version: number }> {
+  const row = await readRow();
+  return { settings: workshopSettingsSchema.parse(row?.values ?? {}), version: row?.version ?? 1 };
+}
+
 /** The zone every date on screen and in mail is shown in. */
 export const workshopTimeZone = async () => (await workshopSettings()).timeZone;
 
@@ -65,21 +71,35 @@ export async function getSettingsPage(actor: Actor): Promise<SettingsPageDto> {
 export async function updateWorkshopSettings(actor: Actor, input: UpdateWorkshopSettingsInput): Promise<SettingsPageDto> {
   assertCan(actor, "settings:manage");
   const { version, ...patch } = input;
-  await db.transaction(async (tx) => {
+  await saveSettings(actor, version, patch);
+  return getSettingsPage(actor);
+}
+
+/**
+ * The one write of the settings row, for the admin form and the wax room's defaults alike (each checks its own
+ * permission first): locks the row, refuses a stale version (409 settingsConflict), stores the merged values
+ * and one history entry listing what changed. Answers the settings' version after the save.
+ */
+export async function saveSettings(actor: Actor, version: number, patch: Partial<WorkshopSettings>): Promise<number> {
+  return db.transaction(async (tx) => {
     await tx.insert(settingsTable).values({ id: SETTINGS_ID }).onConflictDoNothing();
     const [row] = await tx.select().from(settingsTable).where(eq(settingsTable.id, SETTINGS_ID)).for("update");
     if (row.version !== version) throw new AppError("settingsConflict");
     const before = workshopSettingsSchema.parse(row.values);
     const after = workshopSettingsSchema.parse({ ...before, ...patch });
     const changes = workshopSettingKeys.filter((key) => JSON.stringify(before[key]) !== JSON.stringify(after[key])).map((key) => ({ key: key as string, from: before[key], to: after[key] }));
-    if (changes.length === 0) return;
+    if (changes.length === 0) return row.version;
     const [updated] = await tx
       .update(settingsTable)
       .set({ values: after, version: sql`${settingsTable.version} + 1`, updatedBy: actor.id, updatedAt: sql`now()` })
       .where(eq(settingsTable.id, SETTINGS_ID))
       .returning({ version: settingsTable.version });
     await tx.insert(workshopSettingChanges).values({ version: updated.version, actorId: actor.id, actorName: actor.name, changes });
+    return updated.version;
   });
-  return getSettingsPage(actor);
 }
 
+/** The settings' current version (what a form that writes part of them starts from). */
+export async function settingsVersion(): Promise<number> {
+  return (await readRow())?.version ?? 1;
+}

@@ -1,5 +1,6 @@
 import { z } from "@/lib/zod";
 import { isTimeZone } from "@/lib/time-zone";
+import { DEFAULT_RATE_G_PER_M2, LOSS_MAX_PCT, RATE_MAX_G_PER_M2, RECOVERY_MAX_PCT } from "@/lib/wax/limits";
 
 // The workshop's settings: one schema, one place. To add a setting, add a field here with its default
 // (and `.catch` of the same default, so a value stored by an older release never breaks a page), a line
@@ -8,16 +9,40 @@ import { isTimeZone } from "@/lib/time-zone";
 
 export const defaultTimeZone = "Asia/Jakarta";
 
+/** Prices (wax materials per kg, estimate and purchase costs) are kept and shown in this currency. */
+export const currencies = ["IDR", "USD"] as const;
+export type Currency = (typeof currencies)[number];
+export const defaultCurrency: Currency = "IDR";
+
+/**
+ * The wax master's defaults for new estimates (the wax room sets them, permission wax:write): the application
+ * rate where no calibration exists yet (DEFAULT_RATE_G_PER_M2, derived in lib/wax/limits.ts), losses % and the
+ * share recovered after the boil-off % (no published figure: 0 until someone sets it).
+ */
+export const waxDefaultValues = { waxRateGPerM2: DEFAULT_RATE_G_PER_M2, waxLossPct: 0, waxRecoveryPct: 0 } as const;
+
 const timeZone = z.string("validation.timeZone").trim().refine(isTimeZone, "validation.timeZone");
 
 const shape = {
   /** Every date and time on screen and in e-mails is shown in this zone. */
   timeZone,
+  currency: z.enum(currencies, "validation.invalidOption"),
+};
+
+/** The wax room's defaults (see waxDefaultValues); written through lib/data/wax/defaults.ts, not the admin form. */
+export const waxDefaultsShape = {
+  waxRateGPerM2: z.number("validation.number").gt(0, "wax.mustBePositive").max(RATE_MAX_G_PER_M2, "validation.tooBig"),
+  waxLossPct: z.number("validation.number").min(0, "validation.tooSmall").max(LOSS_MAX_PCT, "validation.tooBig"),
+  waxRecoveryPct: z.number("validation.number").min(0, "validation.tooSmall").max(RECOVERY_MAX_PCT, "validation.tooBig"),
 };
 
 /** Stored settings → typed settings with defaults for anything missing or no longer valid. */
 export const workshopSettingsSchema = z.object({
   timeZone: shape.timeZone.default(defaultTimeZone).catch(defaultTimeZone),
+  currency: shape.currency.default(defaultCurrency).catch(defaultCurrency),
+  waxRateGPerM2: waxDefaultsShape.waxRateGPerM2.default(waxDefaultValues.waxRateGPerM2).catch(waxDefaultValues.waxRateGPerM2),
+  waxLossPct: waxDefaultsShape.waxLossPct.default(waxDefaultValues.waxLossPct).catch(waxDefaultValues.waxLossPct),
+  waxRecoveryPct: waxDefaultsShape.waxRecoveryPct.default(waxDefaultValues.waxRecoveryPct).catch(waxDefaultValues.waxRecoveryPct),
 });
 
 export type WorkshopSettings = z.output<typeof workshopSettingsSchema>;
@@ -32,3 +57,12 @@ export const updateWorkshopSettingsSchema = z
   .strict();
 
 export type UpdateWorkshopSettingsInput = z.output<typeof updateWorkshopSettingsSchema>;
+
+/** The wax defaults' change, from the wax room: any subset, and the settings' version it started from. */
+export const updateWaxDefaultsSchema = z
+  .object(waxDefaultsShape)
+  .partial()
+  .extend({ version: z.coerce.number("validation.required").int().positive() })
+  .strict();
+
+export type UpdateWaxDefaultsInput = z.output<typeof updateWaxDefaultsSchema>;

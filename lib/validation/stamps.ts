@@ -96,15 +96,27 @@ function checkTwin(value: TwinShape, ctx: z.RefinementCtx) {
 
 export const createStampSchema = stampFields.strict().superRefine(checkTwin);
 
-/** A change: any subset of the fields plus the version the editor started from. */
+const { impressionsCount: _impressionsCount, ...editableShape } = fieldShape;
+void _impressionsCount;
+
+/**
+ * A change: any subset of the fields plus the version the editor started from. The impression count is not
+ * among them: only the work that made impressions adds to it (lib/data/stamps/impressions.ts).
+ */
 export const updateStampSchema = z
-  .object(fieldShape)
+  .object(editableShape)
   .partial()
-  .extend({ version: z.number("validation.required").int().positive() })
+  .extend({ version: z.number("validation.required").int().positive(), impressionsCount: z.unknown().optional() })
   .strict()
   .superRefine((value, ctx) => {
+    if (value.impressionsCount !== undefined) ctx.addIssue({ code: "custom", path: ["impressionsCount"], message: "validation.impressionsReadOnly" });
     if (Object.keys(value).filter((k) => k !== "version").length === 0) ctx.addIssue({ code: "custom", path: [], message: "validation.nothingToChange" });
     checkTwin(value, ctx);
+  })
+  .transform((value) => {
+    const { impressionsCount, ...rest } = value;
+    void impressionsCount;
+    return rest;
   });
 
 export type CreateStampInput = z.output<typeof createStampSchema>;

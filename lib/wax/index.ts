@@ -14,3 +14,4 @@ export * from "./estimate";
 export * from "./run";
 export * from "./calibration";
 export * from "./purchase";
+export * from "./impressions";

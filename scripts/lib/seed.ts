@@ -2,12 +2,14 @@ import type { Database } from "@/db";
 import { seedScans } from "../seed/scans";
 import { seedStamps } from "../seed/stamps";
 import { demoUsers, seedUsers } from "../seed/users";
+import { seedWax } from "../seed/wax";
 import { objectStoreFromEnv } from "./object-store-config";
 
 export async function seedDemo(db: Database) {
   await seedUsers(db);
   await seedStamps(db);
   await seedScans(db, objectStoreFromEnv());
+  await seedWax(db);
 }
 
 export function printSignIns(appUrl = process.env.APP_URL ?? "http://localhost:3000") {

@@ -27,7 +27,7 @@ describe("workshop settings", () => {
   it("start at the default time zone, Asia/Jakarta", async () => {
     const res = await api("GET", "/api/v1/settings", { session: sessions.admin });
     expect(res.status).toBe(200);
-    expect(res.body.settings).toEqual({ timeZone: "Asia/Jakarta" });
+    expect(res.body.settings).toMatchObject({ timeZone: "Asia/Jakarta", currency: "IDR" });
     expect(res.body.version).toBeGreaterThanOrEqual(1);
   });
 
@@ -44,8 +44,11 @@ describe("workshop settings", () => {
     const res = await api("PATCH", "/api/v1/settings", { session: sessions.admin, body: { version: body.version, timeZone: "Atlantis/Capital" } });
     expect(res.status).toBe(400);
     expect(res.body.error.fields.timeZone[0]).toMatch(/Choose a time zone/);
-    const unknown = await api("PATCH", "/api/v1/settings", { session: sessions.admin, body: { version: body.version, currency: "IDR" } });
+    const unknown = await api("PATCH", "/api/v1/settings", { session: sessions.admin, body: { version: body.version, colour: "blue" } });
     expect(unknown.status).toBe(400);
+    const currency = await api("PATCH", "/api/v1/settings", { session: sessions.admin, body: { version: body.version, currency: "EUR" } });
+    expect(currency.status).toBe(400);
+    expect(currency.body.error.fields.currency[0]).toMatch(/IDR, USD/);
   });
 
   it("save a change with who and what in the history, refuse a stale version with 409, and keep the version when nothing changes", async () => {
@@ -64,7 +67,7 @@ describe("workshop settings", () => {
     const same = await api("PATCH", "/api/v1/settings", { session: sessions.admin, body: { version: body.version + 1, timeZone: "Asia/Makassar" } });
     expect(same.body.version).toBe(body.version + 1);
     const [stored] = await db().select().from(workshopSettings);
-    expect(stored.values).toEqual({ timeZone: "Asia/Makassar" });
+    expect(stored.values).toMatchObject({ timeZone: "Asia/Makassar", currency: "IDR" });
   });
 
   it("format the times in e-mails in the workshop's zone", async () => {

@@ -40,6 +40,24 @@ import * as users from "./users/route";
 import * as usersId from "./users/[id]/route";
 import * as usersIdInvitation from "./users/[id]/invitation/route";
 import * as usersIdResetLink from "./users/[id]/reset-link/route";
+import * as waxCalibration from "./wax/calibration/route";
+import * as waxDefaults from "./wax/defaults/route";
+import * as waxEstimate from "./wax/estimate/route";
+import * as waxEstimates from "./wax/estimates/route";
+import * as waxEstimatesId from "./wax/estimates/[id]/route";
+import * as waxMaterials from "./wax/materials/route";
+import * as waxMaterialsId from "./wax/materials/[id]/route";
+import * as waxMaterialsIdHistory from "./wax/materials/[id]/history/route";
+import * as waxMaterialsIdMovements from "./wax/materials/[id]/movements/route";
+import * as waxPurchaseList from "./wax/purchase-list/route";
+import * as waxRecipes from "./wax/recipes/route";
+import * as waxRecipesCompare from "./wax/recipes/compare/route";
+import * as waxRecipesId from "./wax/recipes/[id]/route";
+import * as waxRecipesIdDuplicate from "./wax/recipes/[id]/duplicate/route";
+import * as waxRecipesIdHistory from "./wax/recipes/[id]/history/route";
+import * as waxUses from "./wax/uses/route";
+import * as waxUsesId from "./wax/uses/[id]/route";
+import * as waxUsesIdWithdraw from "./wax/uses/[id]/withdraw/route";
 
 export const routeModules: RouteModule[] = [
   { path: "/api/v1/admin/tokens", handlers: adminTokens },
@@ -81,4 +99,22 @@ export const routeModules: RouteModule[] = [
   { path: "/api/v1/users/{id}", handlers: usersId },
   { path: "/api/v1/users/{id}/invitation", handlers: usersIdInvitation },
   { path: "/api/v1/users/{id}/reset-link", handlers: usersIdResetLink },
+  { path: "/api/v1/wax/calibration", handlers: waxCalibration },
+  { path: "/api/v1/wax/defaults", handlers: waxDefaults },
+  { path: "/api/v1/wax/estimate", handlers: waxEstimate },
+  { path: "/api/v1/wax/estimates", handlers: waxEstimates },
+  { path: "/api/v1/wax/estimates/{id}", handlers: waxEstimatesId },
+  { path: "/api/v1/wax/materials", handlers: waxMaterials },
+  { path: "/api/v1/wax/materials/{id}", handlers: waxMaterialsId },
+  { path: "/api/v1/wax/materials/{id}/history", handlers: waxMaterialsIdHistory },
+  { path: "/api/v1/wax/materials/{id}/movements", handlers: waxMaterialsIdMovements },
+  { path: "/api/v1/wax/purchase-list", handlers: waxPurchaseList },
+  { path: "/api/v1/wax/recipes", handlers: waxRecipes },
+  { path: "/api/v1/wax/recipes/compare", handlers: waxRecipesCompare },
+  { path: "/api/v1/wax/recipes/{id}", handlers: waxRecipesId },
+  { path: "/api/v1/wax/recipes/{id}/duplicate", handlers: waxRecipesIdDuplicate },
+  { path: "/api/v1/wax/recipes/{id}/history", handlers: waxRecipesIdHistory },
+  { path: "/api/v1/wax/uses", handlers: waxUses },
+  { path: "/api/v1/wax/uses/{id}", handlers: waxUsesId },
+  { path: "/api/v1/wax/uses/{id}/withdraw", handlers: waxUsesIdWithdraw },
 ];

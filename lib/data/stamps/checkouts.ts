@@ -9,6 +9,7 @@ import type { CheckoutInput, ReturnInput } from "@/lib/validation/stamps";
 import { workshopToday } from "../settings";
 import { locationLabel } from "@/lib/stamps/format";
 import { isUniqueViolation, recordEvent } from "./events";
+import { addImpressions } from "./impressions";
 import type { OpenCheckoutDto } from "@/lib/contracts/stamps";
 import { bump, findStamp, locationOrFail, openCheckoutOf, toCheckoutDto, toLocationRef } from "./shared";
 
@@ -61,8 +62,8 @@ export async function returnStamp(actor: Actor, code: string, input: ReturnInput
     const open = await openCheckoutOf(tx, stamp.id);
     if (!open) throw new AppError("notCheckedOut");
     await tx.update(checkouts).set({ returnedAt: new Date(), returnedBy: actor.id }).where(eq(checkouts.id, open.id));
+    if (input.impressions) await addImpressions(tx, [{ stampId: stamp.id, impressions: input.impressions }], { kind: "return" });
     const set: Partial<typeof stamps.$inferInsert> = {};
-    if (input.impressions) set.impressionsCount = stamp.impressionsCount + input.impressions;
     let moved: { from: string | null; to: string | null } | null = null;
     if (input.locationId && input.locationId !== stamp.locationId) {
       const [from, to] = await Promise.all([

@@ -165,7 +165,8 @@ export async function importStampsCsv(actor: Actor, text: string, options: { dry
       const { twinCode: _twin, ...input } = row.input;
       void _twin;
       if (existing.has(row.input.code)) {
-        const patch = Object.fromEntries(Object.entries(input).filter(([k]) => row.present.has(k))) as Partial<UpdateStampInput>;
+        // An import names a starting count for new stamps only: an existing stamp's count grows by the work it does.
+        const patch = Object.fromEntries(Object.entries(input).filter(([k]) => row.present.has(k) && k !== "impressionsCount")) as Partial<UpdateStampInput>;
         await apply(row, () => updateStamp(actor, row.input.code, { ...patch, version: 0 }, { ignoreVersion: true, tx }));
       } else {
         await apply(row, () => createStamp(actor, { ...input, twinCode: null }, tx));

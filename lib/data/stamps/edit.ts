@@ -95,7 +95,6 @@ const trackedFields = [
   "madeOn",
   "coverageRatio",
   "outlinePath",
-  "impressionsCount",
   "notes",
   "tags",
   "motifId",

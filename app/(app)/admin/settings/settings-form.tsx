@@ -7,8 +7,9 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { initialFormState } from "@/lib/actions/form-state";
+import { Select } from "@/components/ui/select";
 import { isTimeZone } from "@/lib/time-zone";
-import type { WorkshopSettings } from "@/lib/validation/settings";
+import { currencies, type WorkshopSettings } from "@/lib/validation/settings";
 import { updateSettingsAction } from "./actions";
 
 /** The workshop settings; each setting one field. The version guards against saving over someone else's change. */
@@ -43,6 +44,16 @@ export function SettingsForm({ settings, version, timeZones }: { settings: Works
       <p className="text-sm text-stone-600" data-testid="time-zone-preview" suppressHydrationWarning>
         {isTimeZone(timeZone.trim()) ? t("fields.timeZone.preview", { now: format.dateTime(now, { dateStyle: "full", timeStyle: "short", timeZone: timeZone.trim() }) }) : t("fields.timeZone.unknown")}
       </p>
+      <Field id="settings-currency" label={t("fields.currency.label")} hint={t("fields.currency.hint")} errors={state.fieldErrors?.currency}>
+        {(aria) => (
+          <Select
+            {...aria}
+            name="currency"
+            defaultValue={failed ? (state.values?.currency ?? settings.currency) : settings.currency}
+            options={currencies.map((c) => ({ value: c, label: t(`fields.currency.options.${c}`) }))}
+          />
+        )}
+      </Field>
       <Button type="submit" disabled={pending}>
         {pending ? t("saving") : t("save")}
       </Button>
