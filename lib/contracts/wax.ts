@@ -4,7 +4,7 @@
 import type { WaxChangeKind, WaxMovementKind } from "@/db/schema";
 import { fahrenheitToCelsius, ouncesToGrams, poundsToKilograms } from "@/lib/units";
 import type { BandPlacement, FlashPointStatus, RateFit, RecipeUse, Season, WaxParams } from "@/lib/wax";
-import { formChecked, formNumber, formOptional, formText } from "./form-input";
+import { formChecked, formNumber, formOptional, formText, readNumber } from "./form-input";
 
 export type UnitSystem = "metric" | "imperial";
 export type Currency = "IDR" | "USD";
@@ -281,12 +281,12 @@ export const waxPages = {
 
 const imperialOf = (form: FormData) => formText(form, "unitSystem") === "imperial";
 /** A number field as given (undefined when empty, NaN when not a number, so the schema names the field). */
-const num = (form: FormData, name: string) => formNumber(form, name) ?? undefined;
+const num = (form: FormData, name: string, locale: string) => formNumber(form, name, locale) ?? undefined;
 const converted = (value: number | undefined, imperial: boolean, toMetric: (v: number) => number) => (value === undefined || Number.isNaN(value) || !imperial ? value : toMetric(value));
-const temp = (form: FormData, name: string) => converted(num(form, name), imperialOf(form), fahrenheitToCelsius);
+const temp = (form: FormData, name: string, locale: string) => converted(num(form, name, locale), imperialOf(form), fahrenheitToCelsius);
 
 /** The recipe form's component rows in order (named components.<i>.material / .pct); an empty row is kept, so its message stands beside it. */
-function componentRows(form: FormData): { material: string; pct: number | undefined }[] {
+function componentRows(form: FormData, locale: string): { material: string; pct: number | undefined }[] {
   const indices = new Set<number>();
   for (const key of form.keys()) {
     const m = /^components\.(\d+)\.(material|pct)$/.exec(key);
@@ -294,17 +294,17 @@ function componentRows(form: FormData): { material: string; pct: number | undefi
   }
   return [...indices]
     .sort((a, b) => a - b)
-    .map((i) => ({ material: formText(form, `components.${i}.material`).trim(), pct: num(form, `components.${i}.pct`) }));
+    .map((i) => ({ material: formText(form, `components.${i}.material`).trim(), pct: num(form, `components.${i}.pct`, locale) }));
 }
 
 /** The recipe form (working range in the person's unit; a hidden unitSystem) → createRecipeSchema / updateRecipeSchema. */
-export function recipeFormInput(form: FormData, mode: "create" | "update"): Record<string, unknown> {
+export function recipeFormInput(form: FormData, mode: "create" | "update", locale: string): Record<string, unknown> {
   const input: Record<string, unknown> = {
     name: formText(form, "name"),
     season: formOptional(form, "season"),
     use: formOptional(form, "use"),
-    components: componentRows(form),
-    workingRangeC: { minC: temp(form, "workingMin"), maxC: temp(form, "workingMax") },
+    components: componentRows(form, locale),
+    workingRangeC: { minC: temp(form, "workingMin", locale), maxC: temp(form, "workingMax", locale) },
     notes: formText(form, "notes"),
   };
   if (mode === "update") input.version = formText(form, "version");
@@ -315,21 +315,21 @@ export function recipeFormInput(form: FormData, mode: "create" | "update"): Reco
 export const duplicateFormInput = (form: FormData) => ({ name: formText(form, "name"), season: formOptional(form, "season") });
 
 /** The material form (temperatures in the person's unit, reorder level kg or lb) → create/updateMaterialSchema. */
-export function materialFormInput(form: FormData, mode: "create" | "update"): Record<string, unknown> {
+export function materialFormInput(form: FormData, mode: "create" | "update", locale: string): Record<string, unknown> {
   const imperial = imperialOf(form);
   const flash = formText(form, "flashPoint").trim();
   const discolours = formText(form, "discoloursAbove").trim();
   const price = formText(form, "pricePerKg").trim();
-  const priceValue = price === "" ? null : Number(price.replace(",", "."));
+  const priceValue = price === "" ? null : (readNumber(price, locale) ?? Number.NaN);
   const input: Record<string, unknown> = {
     name: formText(form, "name"),
-    densityGPerCm3: num(form, "densityGPerCm3"),
-    meltingRangeC: { fromC: temp(form, "meltFrom"), toC: temp(form, "meltTo") },
-    flashPointC: flash === "" ? null : temp(form, "flashPoint"),
-    discoloursAboveC: discolours === "" ? null : temp(form, "discoloursAbove"),
+    densityGPerCm3: num(form, "densityGPerCm3", locale),
+    meltingRangeC: { fromC: temp(form, "meltFrom", locale), toC: temp(form, "meltTo", locale) },
+    flashPointC: flash === "" ? null : temp(form, "flashPoint", locale),
+    discoloursAboveC: discolours === "" ? null : temp(form, "discoloursAbove", locale),
     // A price per lb in imperial is a price per kg × 0.4536: per kg = per lb / 0.45359237.
     pricePerKg: priceValue === null || Number.isNaN(priceValue) || !imperial ? priceValue : priceValue / poundsToKilograms(1),
-    reorderLevelKg: converted(num(form, "reorderLevel"), imperial, poundsToKilograms) ?? 0,
+    reorderLevelKg: converted(num(form, "reorderLevel", locale), imperial, poundsToKilograms) ?? 0,
     sources: { density: formText(form, "sourceDensity"), melting: formText(form, "sourceMelting"), flashPoint: formText(form, "sourceFlashPoint"), price: formText(form, "sourcePrice") },
   };
   const code = formOptional(form, "code");
@@ -339,60 +339,60 @@ export function materialFormInput(form: FormData, mode: "create" | "update"): Re
 }
 
 /** The stock movement form (kg or lb; a correction may be negative) → stockMovementSchema. */
-export function movementFormInput(form: FormData) {
-  return { kind: formOptional(form, "kind"), kg: converted(num(form, "amount"), imperialOf(form), poundsToKilograms), note: formText(form, "note") };
+export function movementFormInput(form: FormData, locale: string) {
+  return { kind: formOptional(form, "kind"), kg: converted(num(form, "amount", locale), imperialOf(form), poundsToKilograms), note: formText(form, "note") };
 }
 
 /** The estimate form → estimateRequestSchema / saveEstimateSchema (area or plan, run in one way, optional rate). */
-export function estimateFormInput(form: FormData): Record<string, unknown> {
+export function estimateFormInput(form: FormData, locale: string): Record<string, unknown> {
   const runKind = formText(form, "runKind") || "metres";
   const planId = formOptional(form, "planId");
   const input: Record<string, unknown> = {
     planId,
-    waxedAreaPerMetreM2: planId ? undefined : num(form, "waxedAreaPerMetreM2"),
-    passes: num(form, "passes"),
-    rateGPerM2: num(form, "rateGPerM2"),
-    lossPct: num(form, "lossPct"),
-    recoveryPct: num(form, "recoveryPct"),
+    waxedAreaPerMetreM2: planId ? undefined : num(form, "waxedAreaPerMetreM2", locale),
+    passes: num(form, "passes", locale),
+    rateGPerM2: num(form, "rateGPerM2", locale),
+    lossPct: num(form, "lossPct", locale),
+    recoveryPct: num(form, "recoveryPct", locale),
     recipeId: formOptional(form, "recipeId"),
     cloth: formOptional(form, "cloth"),
     name: formOptional(form, "name"),
     planned: formChecked(form, "planned"),
   };
-  if (runKind === "metres") input.metres = num(form, "metres");
+  if (runKind === "metres") input.metres = num(form, "metres", locale);
   else {
-    input[runKind === "kodi" ? "kodi" : "pieces"] = num(form, "runCount");
-    input.pieceLengthMm = num(form, "pieceLengthMm");
+    input[runKind === "kodi" ? "kodi" : "pieces"] = num(form, "runCount", locale);
+    input.pieceLengthMm = num(form, "pieceLengthMm", locale);
   }
   return Object.fromEntries(Object.entries(input).filter(([, v]) => v !== undefined));
 }
 
 /** The wax use form (grams in g or oz) → recordWaxUseSchema; the way of weighing picks grams or the pot's weights. */
-export function waxUseFormInput(form: FormData): Record<string, unknown> {
+export function waxUseFormInput(form: FormData, locale: string): Record<string, unknown> {
   const imperial = imperialOf(form);
-  const grams = (name: string) => converted(num(form, name), imperial, ouncesToGrams);
+  const grams = (name: string) => converted(num(form, name, locale), imperial, ouncesToGrams);
   const weighed = formText(form, "weighing") === "pot";
   const planId = formOptional(form, "planId");
   const input: Record<string, unknown> = {
     usedOn: formText(form, "usedOn"),
     recipeId: formOptional(form, "recipeId"),
     planId,
-    waxedAreaPerMetreM2: planId ? undefined : num(form, "waxedAreaPerMetreM2"),
-    metres: num(form, "metres"),
-    passes: num(form, "passes"),
+    waxedAreaPerMetreM2: planId ? undefined : num(form, "waxedAreaPerMetreM2", locale),
+    metres: num(form, "metres", locale),
+    passes: num(form, "passes", locale),
     cloth: formOptional(form, "cloth"),
     gramsUsed: weighed ? undefined : grams("gramsUsed"),
     potBeforeG: weighed ? grams("potBeforeG") : undefined,
     potAfterG: weighed ? grams("potAfterG") : undefined,
     potAddedG: weighed ? grams("potAddedG") : undefined,
     stampCode: formOptional(form, "stampCode"),
-    impressions: num(form, "impressions"),
+    impressions: num(form, "impressions", locale),
     note: formText(form, "note"),
   };
   return Object.fromEntries(Object.entries(input).filter(([, v]) => v !== undefined));
 }
 
 /** The wax defaults form → updateWaxDefaultsSchema. */
-export function waxDefaultsFormInput(form: FormData) {
-  return { version: formText(form, "version"), waxRateGPerM2: num(form, "waxRateGPerM2"), waxLossPct: num(form, "waxLossPct"), waxRecoveryPct: num(form, "waxRecoveryPct") };
+export function waxDefaultsFormInput(form: FormData, locale: string) {
+  return { version: formText(form, "version"), waxRateGPerM2: num(form, "waxRateGPerM2", locale), waxLossPct: num(form, "waxLossPct", locale), waxRecoveryPct: num(form, "waxRecoveryPct", locale) };
 }

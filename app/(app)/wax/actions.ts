@@ -62,7 +62,7 @@ export async function createRecipeAction(_prev: FormState, formData: FormData): 
     async (input) => {
       id = (await createRecipe(await requirePermission("wax:write"), input)).id;
     },
-    (f) => recipeFormInput(f, "create"),
+    (f, locale) => recipeFormInput(f, "create", locale),
   );
   if (state.status === "success" && id) {
     refreshWax();
@@ -75,7 +75,7 @@ export async function updateRecipeAction(_prev: FormState, formData: FormData): 
   const id = idOf(formData);
   const state = await runForm(formData, updateRecipeSchema, async (input) => {
     await updateRecipe(await requirePermission("wax:write"), id, input);
-  }, (f) => recipeFormInput(f, "update"));
+  }, (f, locale) => recipeFormInput(f, "update", locale));
   if (state.status === "success") {
     refreshWax();
     redirect(`${waxPages.recipe(id)}?saved=edited`);
@@ -129,7 +129,7 @@ export async function createMaterialAction(_prev: FormState, formData: FormData)
   let id: string | undefined;
   const state = await runForm(formData, createMaterialSchema, async (input) => {
     id = (await createMaterial(await requirePermission("wax:write"), input)).id;
-  }, (f) => materialFormInput(f, "create"));
+  }, (f, locale) => materialFormInput(f, "create", locale));
   if (state.status === "success" && id) {
     refreshWax();
     redirect(`${waxPages.material(id)}?saved=created`);
@@ -144,7 +144,7 @@ export async function updateMaterialAction(_prev: FormState, formData: FormData)
     const { recheck } = await updateMaterial(await requirePermission("wax:write"), idOf(formData), input);
     const message = recheck ? (recheck.breaking.length ? t("recheckBreaking", { checked: recheck.recipesChecked, count: recheck.breaking.length }) : t("recheckFine", { checked: recheck.recipesChecked })) : t("saved");
     return { status: "success", message, data: recheck ? { recheck: JSON.stringify(recheck) } : undefined };
-  }, (f) => materialFormInput(f, "update"));
+  }, (f, locale) => materialFormInput(f, "update", locale));
   if (state.status === "success") refreshWax();
   return state;
 }
@@ -178,8 +178,8 @@ export async function estimateAction(_prev: FormState, formData: FormData): Prom
         const result = await computeEstimate(await requirePermission("data:read"), request);
         return { status: "success", data: { result: JSON.stringify(result) }, values: typed };
       },
-      (f) => {
-        const { name: _name, planned: _planned, ...request } = estimateFormInput(f);
+      (f, locale) => {
+        const { name: _name, planned: _planned, ...request } = estimateFormInput(f, locale);
         void _name;
         void _planned;
         return request;
