@@ -1,11 +1,12 @@
 "use client";
 
-import { useTranslations } from "next-intl";
+import { useLocale, useTranslations } from "next-intl";
 import { useActionState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { initialFormState, type FormState } from "@/lib/actions/form-state";
+import { numberInput } from "@/lib/contracts/form-input";
 import type { WaxDefaultsDto } from "@/lib/contracts/wax";
 
 type Action = (state: FormState, formData: FormData) => Promise<FormState>;
@@ -13,9 +14,10 @@ type Action = (state: FormState, formData: FormData) => Promise<FormState>;
 /** The defaults new estimates start from: the rate before any calibration, losses and recovery after the boil-off. */
 export function WaxDefaultsForm({ action, defaults }: { action: Action; defaults: WaxDefaultsDto }) {
   const t = useTranslations("waxRoom.defaults");
+  const locale = useLocale();
   const [state, formAction, pending] = useActionState(action, initialFormState);
   const failed = state.status === "error";
-  const v = (name: string, fallback: number) => (failed ? (state.values?.[name] ?? "") : String(fallback));
+  const v = (name: string, fallback: number) => (failed ? (state.values?.[name] ?? "") : numberInput(fallback, locale));
   const e = state.fieldErrors ?? {};
   return (
     <form action={formAction} className="space-y-4" aria-label={t("formLabel")} noValidate>

@@ -1,11 +1,12 @@
 "use client";
 
-import { useFormatter, useTranslations } from "next-intl";
+import { useFormatter, useLocale, useTranslations } from "next-intl";
 import { useActionState, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { initialFormState, type FormState } from "@/lib/actions/form-state";
+import { numberInput } from "@/lib/contracts/form-input";
 import type { EstimateResultDto, UnitSystem, WaxDefaultsDto } from "@/lib/contracts/wax";
 import { BandPicture } from "./band-picture";
 import { kgText } from "./measure";
@@ -45,6 +46,7 @@ export function EstimateForm({
   unitSystem: UnitSystem;
 }) {
   const t = useTranslations("waxRoom.estimate");
+  const locale = useLocale();
   const format = useFormatter();
   const [state, formAction, pending] = useActionState(action, initialFormState);
   const typed = state.values;
@@ -147,10 +149,10 @@ export function EstimateForm({
             {(aria) => <input {...aria} name="rateGPerM2" inputMode="decimal" defaultValue={v("rateGPerM2", "")} />}
           </Field>
           <Field id="estimate-loss" label={t("loss")} errors={e.lossPct}>
-            {(aria) => <input {...aria} name="lossPct" inputMode="decimal" defaultValue={v("lossPct", String(defaults.waxLossPct))} />}
+            {(aria) => <input {...aria} name="lossPct" inputMode="decimal" defaultValue={v("lossPct", numberInput(defaults.waxLossPct, locale))} />}
           </Field>
           <Field id="estimate-recovery" label={t("recovery")} hint={t("recoveryHint")} errors={e.recoveryPct}>
-            {(aria) => <input {...aria} name="recoveryPct" inputMode="decimal" defaultValue={v("recoveryPct", String(defaults.waxRecoveryPct))} />}
+            {(aria) => <input {...aria} name="recoveryPct" inputMode="decimal" defaultValue={v("recoveryPct", numberInput(defaults.waxRecoveryPct, locale))} />}
           </Field>
         </fieldset>
 

@@ -1,12 +1,13 @@
 "use client";
 
-import { useTranslations } from "next-intl";
+import { useLocale, useTranslations } from "next-intl";
 import { useActionState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { Select } from "@/components/ui/select";
 import { initialFormState, type FormState } from "@/lib/actions/form-state";
+import { numberInput } from "@/lib/contracts/form-input";
 import type { Currency, MaterialDto, RecipeRuleBreakDto, UnitSystem } from "@/lib/contracts/wax";
 import { poundsToKilograms } from "@/lib/units";
 import { inputOf, kgIn, massUnit, tempIn, tempUnit } from "./measure";
@@ -17,6 +18,7 @@ type Action = (state: FormState, formData: FormData) => Promise<FormState>;
 /** Adds or changes a material: every figure with the text of its source, temperatures in the person's unit. */
 export function MaterialForm({ action, material, unitSystem, currency }: { action: Action; material: MaterialDto | null; unitSystem: UnitSystem; currency: Currency }) {
   const t = useTranslations("waxRoom.materialForm");
+  const locale = useLocale();
   const [state, formAction, pending] = useActionState(action, initialFormState);
   const failed = state.status === "error";
   const v = (name: string, fallback: string) => (failed ? (state.values?.[name] ?? "") : fallback);
@@ -24,7 +26,7 @@ export function MaterialForm({ action, material, unitSystem, currency }: { actio
   const unit = tempUnit(unitSystem);
   const mass = massUnit(unitSystem);
   // A price per lb for imperial: the price per kg × 0.453 592 37.
-  const price = material?.pricePerKg == null ? "" : String(Number((unitSystem === "imperial" ? material.pricePerKg * poundsToKilograms(1) : material.pricePerKg).toFixed(2)));
+  const price = material?.pricePerKg == null ? "" : numberInput(unitSystem === "imperial" ? material.pricePerKg * poundsToKilograms(1) : material.pricePerKg, locale, 2);
   const recheck = state.status === "success" && state.data?.recheck ? (JSON.parse(state.data.recheck) as { recipesChecked: number; breaking: RecipeRuleBreakDto[] }) : null;
   return (
     <form action={formAction} className="space-y-5" aria-label={material ? t("editLabel") : t("createLabel")} noValidate>
@@ -56,25 +58,25 @@ export function MaterialForm({ action, material, unitSystem, currency }: { actio
           {(aria) => <input {...aria} name="code" autoComplete="off" defaultValue={v("code", material?.code ?? "")} />}
         </Field>
         <Field id="material-density" label={t("density")} errors={e.densityGPerCm3}>
-          {(aria) => <input {...aria} name="densityGPerCm3" inputMode="decimal" defaultValue={v("densityGPerCm3", material ? String(material.densityGPerCm3) : "")} />}
+          {(aria) => <input {...aria} name="densityGPerCm3" inputMode="decimal" defaultValue={v("densityGPerCm3", material ? numberInput(material.densityGPerCm3, locale) : "")} />}
         </Field>
         <Field id="material-melt-from" label={t("meltFrom", { unit })} errors={e["meltingRangeC.fromC"] ?? e.meltingRangeC}>
-          {(aria) => <input {...aria} name="meltFrom" inputMode="decimal" defaultValue={v("meltFrom", inputOf(material?.meltingRangeC.fromC, tempIn, unitSystem, 1))} />}
+          {(aria) => <input {...aria} name="meltFrom" inputMode="decimal" defaultValue={v("meltFrom", inputOf(material?.meltingRangeC.fromC, tempIn, unitSystem, locale, 1))} />}
         </Field>
         <Field id="material-melt-to" label={t("meltTo", { unit })} errors={e["meltingRangeC.toC"]}>
-          {(aria) => <input {...aria} name="meltTo" inputMode="decimal" defaultValue={v("meltTo", inputOf(material?.meltingRangeC.toC, tempIn, unitSystem, 1))} />}
+          {(aria) => <input {...aria} name="meltTo" inputMode="decimal" defaultValue={v("meltTo", inputOf(material?.meltingRangeC.toC, tempIn, unitSystem, locale, 1))} />}
         </Field>
         <Field id="material-flash" label={t("flashPoint", { unit })} hint={t("flashPointHint")} errors={e.flashPointC}>
-          {(aria) => <input {...aria} name="flashPoint" inputMode="decimal" defaultValue={v("flashPoint", inputOf(material?.flashPointC, tempIn, unitSystem, 1))} />}
+          {(aria) => <input {...aria} name="flashPoint" inputMode="decimal" defaultValue={v("flashPoint", inputOf(material?.flashPointC, tempIn, unitSystem, locale, 1))} />}
         </Field>
         <Field id="material-discolours" label={t("discoloursAbove", { unit })} hint={t("optional")} errors={e.discoloursAboveC}>
-          {(aria) => <input {...aria} name="discoloursAbove" inputMode="decimal" defaultValue={v("discoloursAbove", inputOf(material?.discoloursAboveC, tempIn, unitSystem, 1))} />}
+          {(aria) => <input {...aria} name="discoloursAbove" inputMode="decimal" defaultValue={v("discoloursAbove", inputOf(material?.discoloursAboveC, tempIn, unitSystem, locale, 1))} />}
         </Field>
         <Field id="material-price" label={t("price", { currency, unit: mass })} hint={t("priceHint")} errors={e.pricePerKg}>
           {(aria) => <input {...aria} name="pricePerKg" inputMode="decimal" defaultValue={v("pricePerKg", price)} />}
         </Field>
         <Field id="material-reorder" label={t("reorderLevel", { unit: mass })} hint={t("reorderHint")} errors={e.reorderLevelKg}>
-          {(aria) => <input {...aria} name="reorderLevel" inputMode="decimal" defaultValue={v("reorderLevel", inputOf(material?.reorderLevelKg ?? 0, kgIn, unitSystem, 3))} />}
+          {(aria) => <input {...aria} name="reorderLevel" inputMode="decimal" defaultValue={v("reorderLevel", inputOf(material?.reorderLevelKg ?? 0, kgIn, unitSystem, locale, 3))} />}
         </Field>
       </div>
       <fieldset className="grid gap-4 md:grid-cols-2">

@@ -1,3 +1,4 @@
+import { numberInput } from "@/lib/contracts/form-input";
 import { celsiusToFahrenheit, gramsToOunces, kilogramsToPounds } from "@/lib/units";
 import type { UnitSystem } from "@/lib/contracts/wax";
 
@@ -26,5 +27,6 @@ export const rangeText = (minC: number, maxC: number, system: UnitSystem, number
   `${number(tempIn(minC, system), { maximumFractionDigits: 1 })}–${number(tempIn(maxC, system), { maximumFractionDigits: 1 })} ${tempUnit(system)}`;
 
 /** What a form field shows for a stored value in the person's units (a plain number the form reads back). */
-export const inputOf = (value: number | null | undefined, convert: (v: number, s: UnitSystem) => number, system: UnitSystem, digits = 4) =>
-  value === null || value === undefined ? "" : String(Number(convert(value, system).toFixed(digits)));
+/** A figure as an edit form shows it: in the person's unit, written as their language writes numbers (numberInput). */
+export const inputOf = (value: number | null | undefined, convert: (v: number, s: UnitSystem) => number, system: UnitSystem, locale: string, digits = 4) =>
+  value === null || value === undefined ? "" : numberInput(convert(value, system), locale, digits);

@@ -1,7 +1,7 @@
 "use client";
 
 import Link from "next/link";
-import { useFormatter, useTranslations } from "next-intl";
+import { useFormatter, useLocale, useTranslations } from "next-intl";
 import { useActionState, useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { cn } from "@/components/ui/cn";
@@ -9,6 +9,7 @@ import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { Select } from "@/components/ui/select";
 import { initialFormState, type FormState } from "@/lib/actions/form-state";
+import { numberInput, readNumber } from "@/lib/contracts/form-input";
 import type { UnitSystem } from "@/lib/contracts/wax";
 import { fahrenheitToCelsius } from "@/lib/units";
 import { FLASH_POINT_MARGIN_C, FUME_WARNING_ABOVE_C, MIX_SUM_TOLERANCE_PCT, RECIPE_USES, SEASONS } from "@/lib/wax";
@@ -41,18 +42,19 @@ interface Row {
 }
 
 /** Rows from what a refused form sent back (components.<i>.material / .pct), else from the recipe. */
-function initialRows(state: FormState, initial: RecipeFormValues): Row[] {
+function initialRows(state: FormState, initial: RecipeFormValues, locale: string): Row[] {
   if (state.status === "error" && state.values) {
     const indices = [...new Set(Object.keys(state.values).flatMap((k) => /^components\.(\d+)\./.exec(k)?.[1] ?? []))].map(Number).sort((a, b) => a - b);
     if (indices.length) return indices.map((i) => ({ key: i, material: state.values![`components.${i}.material`] ?? "", pct: state.values![`components.${i}.pct`] ?? "" }));
   }
-  const rows = initial.components.map((c, i) => ({ key: i, material: c.material, pct: c.pct === null ? "" : String(c.pct) }));
+  const rows = initial.components.map((c, i) => ({ key: i, material: c.material, pct: numberInput(c.pct, locale) }));
   return rows.length ? rows : [{ key: 0, material: "", pct: "" }];
 }
 
-const parse = (value: string) => {
-  const n = Number(value.trim().replace(",", "."));
-  return value.trim() === "" || Number.isNaN(n) ? null : n;
+/** What a box holds as a number, read as the person's language writes it; null while empty or not a number yet. */
+const parse = (value: string, locale: string) => {
+  const n = readNumber(value, locale);
+  return n === null || Number.isNaN(n) ? null : n;
 };
 
 /**
@@ -63,17 +65,18 @@ export function RecipeForm({ action, mode, initial, materials, unitSystem }: { a
   const t = useTranslations("waxRoom.recipeForm");
   const tw = useTranslations("waxRoom");
   const format = useFormatter();
+  const locale = useLocale();
   const [state, formAction, pending] = useActionState(action, initialFormState);
   const failed = state.status === "error";
   const v = (name: string, fallback: string) => (failed ? (state.values?.[name] ?? "") : fallback);
   const e = state.fieldErrors ?? {};
-  const [rows, setRows] = useState<Row[]>(() => initialRows(state, initial));
+  const [rows, setRows] = useState<Row[]>(() => initialRows(state, initial, locale));
   const [nextKey, setNextKey] = useState(() => Math.max(...rows.map((r) => r.key)) + 1);
-  const [maxTyped, setMaxTyped] = useState(() => v("workingMax", inputOf(initial.workingRangeC.maxC, tempIn, unitSystem, 1)));
+  const [maxTyped, setMaxTyped] = useState(() => v("workingMax", inputOf(initial.workingRangeC.maxC, tempIn, unitSystem, locale, 1)));
 
-  const total = rows.reduce((sum, r) => sum + (parse(r.pct) ?? 0), 0);
+  const total = rows.reduce((sum, r) => sum + (parse(r.pct, locale) ?? 0), 0);
   const totalOk = Math.abs(total - 100) <= MIX_SUM_TOLERANCE_PCT;
-  const maxTypedC = parse(maxTyped);
+  const maxTypedC = parse(maxTyped, locale);
   const maxC = maxTypedC === null ? null : unitSystem === "imperial" ? fahrenheitToCelsius(maxTypedC) : maxTypedC;
   const lowestFlash = useMemo(() => {
     const chosen = rows.map((r) => materials.find((m) => m.id === r.material)).filter((m): m is RecipeFormMaterial => !!m);
@@ -166,7 +169,7 @@ export function RecipeForm({ action, mode, initial, materials, unitSystem }: { a
       <fieldset className="grid gap-4 md:grid-cols-3">
         <legend className="mb-2 text-sm font-semibold text-stone-900">{t("temperature")}</legend>
         <Field id="recipe-min" label={t("workingMin", { unit })} errors={e["workingRangeC.minC"] ?? e.workingRangeC}>
-          {(aria) => <input {...aria} name="workingMin" inputMode="decimal" defaultValue={v("workingMin", inputOf(initial.workingRangeC.minC, tempIn, unitSystem, 1))} />}
+          {(aria) => <input {...aria} name="workingMin" inputMode="decimal" defaultValue={v("workingMin", inputOf(initial.workingRangeC.minC, tempIn, unitSystem, locale, 1))} />}
         </Field>
         <Field id="recipe-max" label={t("workingMax", { unit })} errors={e["workingRangeC.maxC"]}>
           {(aria) => <input {...aria} name="workingMax" inputMode="decimal" value={maxTyped} onChange={(ev) => setMaxTyped(ev.target.value)} />}

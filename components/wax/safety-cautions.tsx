@@ -1,5 +1,6 @@
 import { getTranslations } from "next-intl/server";
 
+// i18n-keys: waxRoom.safety.*
 const cautions = ["burns", "fire", "fumes", "clothing", "water", "floors"] as const;
 
 /** The cautions every wax screen shows (SPEC 5.3), and who decides: codes, the supplier's SDS, licensed practice. */

@@ -14,6 +14,8 @@ const textArguments = new Set([
   "now", "options", "outAt", "owner", "place", "seenAt", "problem", "ratio", "reason", "recorded", "reporter", "role", "roles",
   "setting", "site", "size", "source", "status", "tag", "timeZone", "to", "type", "typed", "unit", "until", "url", "when",
   "workstation",
+  // the wax room's quantities, written by format.number and the unit helpers before they reach the message
+  "amount", "cloth", "currency", "day", "density", "flash", "grams", "level", "limit", "metres", "onHand", "price", "rate", "recipe", "se",
 ]);
 
 function plainArguments(elements: MessageFormatElement[], out: string[] = []): string[] {
