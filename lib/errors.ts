@@ -38,6 +38,10 @@ export const errorStatus = {
   scanUploadMissing: 409,
   settingsConflict: 409,
   lastAdmin: 409,
+  stampInPlans: 409,
+  requestAnswered: 409,
+  requestStampsUnavailable: 409,
+  requestStampsReserved: 409,
   internal: 500,
 } as const;
 

@@ -3,3 +3,5 @@ export * from "./users";
 export * from "./stamps";
 export * from "./scans";
 export * from "./settings";
+export * from "./plans";
+export * from "./requests";
