@@ -510,3 +510,15 @@ export function newPlannerValues(p: {
     borderStart: "0",
   };
 }
+
+/** Each layer's stamp picture for drawing a saved plan: the field stamp's, and each border's on its edges. */
+export function layerPictures(plan: Pick<PlanDto, "stamps" | "borders">): Partial<Record<"field" | "border-left" | "border-right", StampPicture | null>> {
+  const byRole = new Map(plan.stamps.map((s) => [s.role, s.picture]));
+  const out: Partial<Record<"field" | "border-left" | "border-right", StampPicture | null>> = { field: byRole.get("field") ?? null };
+  (plan.borders ?? []).forEach((b, k) => {
+    const picture = byRole.get(`border:${k}`) ?? null;
+    if (b.side !== "right") out["border-left"] = picture;
+    if (b.side !== "left") out["border-right"] = picture;
+  });
+  return out;
+}

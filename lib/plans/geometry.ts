@@ -1,4 +1,5 @@
 import { LayoutInputError, withBorders, withStamp, type LayoutSpec, type StampSize } from "@/lib/layout";
+import { WINDOW_DEFAULT_LENGTH_MM } from "@/lib/layout/limits";
 
 // How a library stamp becomes the engine's stamp, and how a layout that names stamps by code becomes the engine's
 // input. The server (lib/data/layout.ts, the plans) and the planner in the browser resolve codes the same way.
@@ -28,7 +29,7 @@ export function engineStampOf(stamp: LibraryStampGeometry): StampSize {
 export type StampRef = StampSize | { code: string };
 
 /** A parsed layout request whose field stamp and border stamps may be library codes. */
-export type LayoutRequestLike = Omit<LayoutSpec, "stamp" | "borders"> & {
+export type LayoutRequestLike = Omit<LayoutSpec, "stamp" | "borders" | "window" | "impressions" | "preview"> & Partial<Pick<LayoutSpec, "window" | "impressions" | "preview">> & {
   stamp: StampRef;
   borders: Array<Omit<LayoutSpec["borders"][number], "stamp"> & { stamp: StampRef }>;
 };
@@ -48,7 +49,7 @@ export function stampCodesOf(request: LayoutRequestLike): { role: string; code: 
 }
 
 /**
- * The engine input for a request, its library stamps looked up in `geometry` (by upper-case code). A code that
+ * The engine input for a request (a saved plan's layout without view options too), its library stamps looked up in `geometry` (by upper-case code). A code that
  * is not there is refused like any other input, at `stamp.code` or `borders.<k>.stamp.code`.
  */
 export function resolveLayoutRequest(request: LayoutRequestLike, geometry: ReadonlyMap<string, StampSize>): LayoutSpec {
@@ -65,6 +66,7 @@ export function resolveLayoutRequest(request: LayoutRequestLike, geometry: Reado
   }
   const resolve = (ref: StampRef) => (codeOf(ref) ? geometry.get(codeOf(ref)!)! : ref);
   const { stamp, borders, ...rest } = request;
-  const spec = withStamp({ ...rest, borders: [] }, resolve(stamp));
+  // A saved plan keeps no view options: the first metre, no impression list, no preview.
+  const spec = withStamp({ window: { startMm: 0, lengthMm: WINDOW_DEFAULT_LENGTH_MM }, impressions: false, preview: false, ...rest, borders: [] }, resolve(stamp));
   return borders.length ? withBorders(spec, borders.map((b) => ({ ...b, stamp: resolve(b.stamp) }))) : spec;
 }
