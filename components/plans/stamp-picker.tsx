@@ -65,7 +65,7 @@ export function StampPicker({ id, name, label, hint, value, onChange, errors, ch
           name={name}
           role="combobox"
           aria-expanded={shown}
-          aria-controls={listId}
+          aria-controls={shown ? listId : undefined}
           aria-autocomplete="list"
           aria-activedescendant={shown && results[active] ? `${listId}-${active}` : undefined}
           aria-invalid={errors?.length ? true : undefined}

@@ -77,7 +77,10 @@ export async function createPlan(actor: Actor, input: CreatePlanInput, copyOf?: 
   return planDto(plan);
 }
 
-const same = (a: unknown, b: unknown) => JSON.stringify(a ?? null) === JSON.stringify(b ?? null);
+/** The same value, whatever the order of object keys (jsonb keeps its own order). */
+const canonical = (v: unknown): unknown =>
+  Array.isArray(v) ? v.map(canonical) : v && typeof v === "object" ? Object.fromEntries(Object.keys(v).sort().map((k) => [k, canonical((v as Record<string, unknown>)[k])])) : v;
+const same = (a: unknown, b: unknown) => JSON.stringify(canonical(a ?? null)) === JSON.stringify(canonical(b ?? null));
 
 /**
  * Applies a change made from `input.version`: name, notes, motif, and the layout or borders (which computes the

@@ -45,7 +45,7 @@ export default async function RequestQueuePage() {
                     {r.plan ? (
                       <>
                         {" · "}
-                        <Link href={planPages.one(r.plan.id)} className="text-ink-700 hover:underline">
+                        <Link href={planPages.one(r.plan.id)} className="text-ink-700 underline">
                           {r.plan.name}
                         </Link>
                       </>
@@ -81,7 +81,7 @@ export default async function RequestQueuePage() {
                       {n.plan ? (
                         <>
                           {" · "}
-                          <Link href={planPages.one(n.plan.id)} className="text-ink-700 hover:underline">
+                          <Link href={planPages.one(n.plan.id)} className="text-ink-700 underline">
                             {n.plan.name}
                           </Link>
                         </>
