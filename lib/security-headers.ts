@@ -22,13 +22,12 @@ export function newNonce(): string {
 /**
  * The pages' Content-Security-Policy, after the Next.js guide (docs/app/guides/content-security-policy):
  * scripts and style elements only with this answer's nonce (Next.js puts it on its own scripts),
- * `strict-dynamic` for the chunks those load, WebAssembly compilation but no eval outside `next dev`, no framing, no plugins.
+ * `strict-dynamic` for the chunks those load, no eval outside `next dev`, no framing, no plugins.
  */
 export function contentSecurityPolicy(nonce: string, config: SecurityConfig): string {
   const directives = [
     "default-src 'self'",
-    // 'wasm-unsafe-eval' lets the planner compile the polygon engine's WebAssembly (Clipper2); JavaScript eval stays off.
-    `script-src 'self' 'nonce-${nonce}' 'strict-dynamic' 'wasm-unsafe-eval'${config.dev ? " 'unsafe-eval'" : ""}`,
+    `script-src 'self' 'nonce-${nonce}' 'strict-dynamic'${config.dev ? " 'unsafe-eval'" : ""}`,
     // Dev only: the dev overlay injects style elements without the nonce (and a nonce would disable unsafe-inline).
     `style-src 'self' ${config.dev ? "'unsafe-inline'" : `'nonce-${nonce}'`}`,
     "img-src 'self' blob: data:",

@@ -15,7 +15,7 @@ import { Notice } from "@/components/ui/notice";
 import { Panel } from "@/components/ui/panel";
 import { initialFormState } from "@/lib/actions/form-state";
 import { planFieldErrors, planFormInput, planPages, planUrls, type PlannerStamp, type PlannerValues } from "@/lib/contracts/plans";
-import { ARRANGEMENTS, initLayoutEngine, type LayerName, type StampSize } from "@/lib/layout";
+import { ARRANGEMENTS, type LayerName, type StampSize } from "@/lib/layout";
 import type { UnitSystem } from "@/lib/stamps/format";
 import { usePlannerStamp } from "@/lib/swr/use-planner-stamp";
 import { NewStampRequestDialog } from "./new-stamp-request";
@@ -84,10 +84,6 @@ export function Planner({ mode, plan, initialValues, presets, impressionsPerHour
   const [askWidthMm, setAskWidthMm] = useState<number | null>(null);
   const inputAt = useRef<number | null>(null);
   const v = (name: string) => values[name] ?? "";
-
-  useEffect(() => {
-    void initLayoutEngine();
-  }, []);
 
   // A refused save comes back with what was typed (the inputs are controlled, so nothing is lost).
   const [seenState, setSeenState] = useState(state);
