@@ -1,5 +1,6 @@
 import { LayoutInputError, layoutOf, layoutPicture, type LayoutPicture, type LayoutResult, type LayoutSpec, type StampSize } from "@/lib/layout";
 import { issueMessage, issuePath, type MessageValues } from "@/lib/errors";
+import { clipperLibBackend } from "@/lib/layout/polygon";
 import { resolveLayoutRequest, type LayoutRequestLike } from "@/lib/plans";
 import { layoutRequestSchema } from "@/lib/validation/layout";
 import { parseInput } from "@/lib/validation/parse";
@@ -34,7 +35,9 @@ export function computeLive(input: { layout: Record<string, unknown>; borders: u
   try {
     const spec = resolveLayoutRequest(parsed.data as unknown as LayoutRequestLike, geometry);
     const started = performance.now();
-    const result = layoutOf(spec);
+    // clipper-lib, named here: the engine's default would load Clipper2's WebAssembly, whose glue needs eval, which
+    // the page's Content-Security-Policy refuses.
+    const result = layoutOf(spec, { polygons: clipperLibBackend });
     const engineMs = performance.now() - started;
     performance.measure("capgrid:plan-engine", { start: started, end: started + engineMs });
     return { ok: true, spec, result, engineMs };
