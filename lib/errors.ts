@@ -43,6 +43,10 @@ export const errorStatus = {
   recipeInUse: 409,
   recipeArchived: 409,
   waxUseWithdrawn: 409,
+  stampInPlans: 409,
+  requestAnswered: 409,
+  requestStampsUnavailable: 409,
+  requestStampsReserved: 409,
   internal: 500,
 } as const;
 

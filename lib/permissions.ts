@@ -9,6 +9,7 @@ export const permissionTable = {
   "settings:manage": ["admin"],
   "stamps:write": ["admin", "keeper"],
   "stamps:request": ["admin", "keeper", "planner", "waxmaster", "designer"],
+  "stamps:requestNew": ["admin", "keeper", "planner", "designer"],
   "plans:write": ["admin", "planner"],
   "wax:write": ["admin", "waxmaster"],
   "motifs:write": ["admin", "keeper", "designer"],

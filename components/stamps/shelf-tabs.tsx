@@ -10,6 +10,7 @@ const tabs = [
   { href: "/stamps/out", key: "stamps.tabs.out" },
   { href: "/stamps/locations", key: "stamps.tabs.locations" },
   { href: "/stamps/stock-takes", key: "stamps.tabs.stockTakes" },
+  { href: "/stamps/requests", key: "stamps.tabs.requests" },
   { href: "/stamps/import", key: "stamps.tabs.import", writeOnly: true },
 ] as const;
 

@@ -4,3 +4,5 @@ export * from "./stamps";
 export * from "./scans";
 export * from "./settings";
 export * from "./wax";
+export * from "./plans";
+export * from "./requests";

@@ -6,6 +6,8 @@ export interface FormState {
   message?: string;
   fieldErrors?: FieldErrors;
   values?: Record<string, string>;
+  /** Fields the form repeats (rows of the same inputs), every value in order, so a refused form keeps each row. */
+  valueLists?: Record<string, string[]>;
   /** Data the form shows once, e.g. a new API token. */
   data?: Record<string, string>;
 }

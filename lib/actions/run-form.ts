@@ -12,6 +12,16 @@ import type { FormState } from "./form-state";
 const secretFields = new Set(["password", "confirm", "token", "currentPassword"]);
 
 /** The typed values, minus secrets, so a failed form keeps what the user entered but never echoes a password. */
+/** The values of fields that occur more than once (rows of a table in a form), in order. */
+function keepLists(formData: FormData): Record<string, string[]> | undefined {
+  const lists: Record<string, string[]> = {};
+  for (const key of new Set(formData.keys())) {
+    const all = formData.getAll(key).filter((v): v is string => typeof v === "string");
+    if (all.length > 1 && !secretFields.has(key)) lists[key] = all;
+  }
+  return Object.keys(lists).length ? lists : undefined;
+}
+
 function keepValues(formData: FormData): Record<string, string> {
   const values: Record<string, string> = {};
   for (const [key, value] of formData.entries()) {
@@ -51,6 +61,7 @@ export async function runForm<S extends z.ZodType>(
   const t = translator(locale);
   const formData = formFields(submitted);
   const values = keepValues(formData);
+  const valueLists = keepLists(formData);
   const input = toInput(formData, locale);
   const parsed = parseInput(schema, input);
   if (!parsed.success) {
@@ -59,16 +70,17 @@ export async function runForm<S extends z.ZodType>(
       message: t("common.formHasErrors"),
       fieldErrors: issueFields(withNumberExample(parsed.error.issues, input), t),
       values,
+      ...(valueLists ? { valueLists } : {}),
     };
   }
   try {
     const state = (await work(parsed.data)) ?? { status: "success" };
     // A refusal decided in `work` keeps what was typed, like a schema's.
-    return state.status === "error" ? { values, ...state } : state;
+    return state.status === "error" ? { values, ...(valueLists ? { valueLists } : {}), ...state } : state;
   } catch (error) {
     unstable_rethrow(error);
     const { error: answer } = errorAnswer(error, t).body;
     // A refusal that names fields shows beside them; the form as a whole only says to look there.
-    return { status: "error", message: answer.fields ? t("common.formHasErrors") : answer.message, fieldErrors: answer.fields, values };
+    return { status: "error", message: answer.fields ? t("common.formHasErrors") : answer.message, fieldErrors: answer.fields, values, ...(valueLists ? { valueLists } : {}) };
   }
 }

@@ -38,3 +38,24 @@ export const peopleUrls = {
   anyToken: (id: string) => `/api/v1/admin/tokens/${encodeURIComponent(id)}`,
   me: () => "/api/v1/me",
 };
+
+/**
+ * The workshop settings form → updateWorkshopSettingsSchema input: the time zone, the cloth presets (rows of
+ * name, width and margin in mm; an all-blank row is dropped) and the stamping rate.
+ */
+export function settingsFormInput(form: FormData) {
+  const names = form.getAll("presetName").map(String);
+  const widths = form.getAll("presetWidthMm").map(String);
+  const margins = form.getAll("presetMarginMm").map(String);
+  const number = (text: string | undefined) => (text === undefined || text.trim() === "" ? undefined : Number(text.trim().replace(",", ".")));
+  const clothPresets = names
+    .map((name, k) => ({ name, widthMm: number(widths[k]), marginMm: number(margins[k]) ?? 0 }))
+    .filter((p, k) => p.name.trim() !== "" || (widths[k] ?? "").trim() !== "" || (margins[k] ?? "").trim() !== "");
+  const rate = String(form.get("impressionsPerHour") ?? "");
+  return {
+    version: form.get("version"),
+    timeZone: form.get("timeZone") ?? undefined,
+    ...(names.length ? { clothPresets } : {}),
+    ...(rate.trim() !== "" || form.has("impressionsPerHour") ? { impressionsPerHour: number(rate) } : {}),
+  };
+}

@@ -75,3 +75,46 @@ export function overdueReminderMail(t: Translator, d: DateFormat, p: { borrower:
     ),
   };
 }
+
+/** To the stamp keepers: someone asks for stamps (for a plan) from one day until another. */
+export function stampRequestMail(
+  t: Translator,
+  d: DateFormat,
+  p: { requester: string; forWhom: string; workstation: string; codes: string; fromOn: string; untilOn: string; plan: string | null; note: string | null; link: string },
+) {
+  return {
+    subject: t("requestEmails.new.subject", { requester: p.requester }),
+    ...layout(
+      t,
+      [
+        t("requestEmails.new.greeting"),
+        t("requestEmails.new.body", { requester: p.requester, codes: p.codes, forWhom: p.forWhom, workstation: p.workstation, fromOn: d.day(p.fromOn), untilOn: d.day(p.untilOn) }),
+        ...(p.plan ? [t("requestEmails.new.plan", { plan: p.plan })] : []),
+        ...(p.note ? [t("requestEmails.new.note", { note: p.note })] : []),
+      ],
+      { href: p.link, label: t("requestEmails.new.action") },
+      t("requestEmails.new.footer"),
+    ),
+  };
+}
+
+/** To whoever asked: the keepers accepted (the stamps are out now, or will be on the first day) or declined. */
+export function stampRequestAnswerMail(
+  t: Translator,
+  d: DateFormat,
+  p: { requester: string; answer: "checkedOut" | "accepted" | "declined"; keeper: string; codes: string; fromOn: string; untilOn: string; workstation: string; reason: string | null; link: string },
+) {
+  return {
+    subject: t(`requestEmails.${p.answer}.subject`, { codes: p.codes }),
+    ...layout(
+      t,
+      [
+        t("requestEmails.greeting", { name: p.requester }),
+        t(`requestEmails.${p.answer}.body`, { keeper: p.keeper, codes: p.codes, fromOn: d.day(p.fromOn), untilOn: d.day(p.untilOn), workstation: p.workstation }),
+        ...(p.reason ? [t("requestEmails.declined.reason", { reason: p.reason })] : []),
+      ],
+      { href: p.link, label: t("requestEmails.action") },
+      t("requestEmails.footer"),
+    ),
+  };
+}

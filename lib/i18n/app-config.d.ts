@@ -5,6 +5,8 @@ import type enEmails from "./messages/en/emails.json";
 import type enErrors from "./messages/en/errors.json";
 import type enLayout from "./messages/en/layout.json";
 import type enPeople from "./messages/en/people.json";
+import type enPlans from "./messages/en/plans.json";
+import type enRequests from "./messages/en/requests.json";
 import type enScans from "./messages/en/scans.json";
 import type enShell from "./messages/en/shell.json";
 import type enStamps from "./messages/en/stamps.json";
@@ -16,6 +18,6 @@ import type enWaxRoom from "./messages/en/wax-room.json";
 declare module "next-intl" {
   interface AppConfig {
     Formats: { dateTime: typeof dateTimeFormats; number: typeof numberFormats };
-    Messages: typeof enApi & typeof enAuth & typeof enEmails & typeof enErrors & typeof enLayout & typeof enPeople & typeof enScans & typeof enShell & typeof enStamps & typeof enWax & typeof enWaxRoom;
+    Messages: typeof enApi & typeof enAuth & typeof enEmails & typeof enErrors & typeof enLayout & typeof enPeople & typeof enPlans & typeof enRequests & typeof enScans & typeof enShell & typeof enStamps & typeof enWax & typeof enWaxRoom;
   }
 }

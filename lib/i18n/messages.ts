@@ -5,6 +5,8 @@ import enEmails from "./messages/en/emails.json";
 import enErrors from "./messages/en/errors.json";
 import enLayout from "./messages/en/layout.json";
 import enPeople from "./messages/en/people.json";
+import enPlans from "./messages/en/plans.json";
+import enRequests from "./messages/en/requests.json";
 import enScans from "./messages/en/scans.json";
 import enShell from "./messages/en/shell.json";
 import enStamps from "./messages/en/stamps.json";
@@ -16,6 +18,8 @@ import idEmails from "./messages/id/emails.json";
 import idErrors from "./messages/id/errors.json";
 import idLayout from "./messages/id/layout.json";
 import idPeople from "./messages/id/people.json";
+import idPlans from "./messages/id/plans.json";
+import idRequests from "./messages/id/requests.json";
 import idScans from "./messages/id/scans.json";
 import idShell from "./messages/id/shell.json";
 import idStamps from "./messages/id/stamps.json";
@@ -30,8 +34,8 @@ export type CatalogueLocale = Locale;
 // tests/unit/catalogue.test.ts checks no namespace is defined twice, and
 // tests/unit/catalogue-parity.test.ts that the two languages have the same keys and placeholders.
 export const catalogueFiles = {
-  en: [enShell, enAuth, enPeople, enErrors, enEmails, enLayout, enStamps, enScans, enApi, enWax, enWaxRoom],
-  id: [idShell, idAuth, idPeople, idErrors, idEmails, idLayout, idStamps, idScans, idApi, idWax, idWaxRoom],
+  en: [enShell, enAuth, enPeople, enErrors, enEmails, enLayout, enStamps, enScans, enApi, enWax, enWaxRoom, enPlans, enRequests],
+  id: [idShell, idAuth, idPeople, idErrors, idEmails, idLayout, idStamps, idScans, idApi, idWax, idWaxRoom, idPlans, idRequests],
 } satisfies Record<CatalogueLocale, object[]>;
 
 const merge = (files: object[]) => Object.assign({}, ...files) as Record<string, unknown>;

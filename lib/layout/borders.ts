@@ -92,12 +92,13 @@ export function planBorders(
   pieceLengthMm: number,
   edges: EdgeMode,
   lengthField: string,
+  shapeOf: (stamp: BorderSpec["stamp"], field: string) => StampShape = buildStampShape,
 ): BorderPlan {
   const band = bandX1Mm - bandX0Mm;
   const layers: BorderLayer[] = [];
   borders.forEach((spec, index) => {
     const field = (name: string) => `borders.${index}.${name}`;
-    const shape = buildStampShape(spec.stamp, field("stamp.outline"));
+    const shape = shapeOf(spec.stamp, field("stamp.outline"));
     const turned = spec.turn === 90 || spec.turn === 270;
     const base = laid(spec.turn, spec.mirror, spec.stamp.widthMm, spec.stamp.heightMm);
     const { widthMm: w, heightMm: h } = base;

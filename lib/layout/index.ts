@@ -9,14 +9,16 @@ import { buildGrid, perMetreCounts, rowDetails } from "./grid";
 import { listImpressions } from "./impressions";
 import { bandLeftover, layerResult, measureBorder, measureOverlaps, type MeasuredLayer } from "./layers";
 import { EPS_MM } from "./limits";
-import { buildStampShape } from "./outline";
+import { buildStampShape, type StampShape } from "./outline";
 import { polygonBackend, type PolygonBackend } from "./polygon";
 import { previewSvg } from "./preview";
-import { checkGap, layoutInputSchema, stampSizeSchema } from "./schema";
+import { bordersSchema, checkGap, layoutInputSchema, stampSizeSchema } from "./schema";
 import { pathNameOf, planeGroupOf } from "./symmetry";
-import type { LayerOverlap, LayerResult, LayoutInput, LayoutResult, LayoutSpec, StampSize } from "./types";
+import type { Impression, LayerName, LayerOverlap, LayerResult, LayoutInput, LayoutResult, LayoutSpec, StampSize } from "./types";
 
 export { LayoutInputError } from "./errors";
+export { pathNameOf } from "./symmetry";
+export { ARRANGEMENTS } from "./schema";
 export { initLayoutEngine, polygonBackend, polygonBackendFailure, type PolygonBackend } from "./polygon";
 export type { LayoutIssue } from "./errors";
 export type * from "./types";
@@ -51,6 +53,16 @@ export function withStamp(layout: Omit<LayoutSpec, "stamp">, stamp: unknown): La
 }
 
 /**
+ * A parsed layout whose borders' stamps came from elsewhere (library stamps by code): checks the borders as
+ * parsing the whole input would (each repeat needs its stamp's size) and returns the engine input.
+ */
+export function withBorders(layout: LayoutSpec, borders: unknown): LayoutSpec {
+  const parsed = bordersSchema.safeParse(borders);
+  if (!parsed.success) throw new LayoutInputError(toLayoutIssues(parsed.error.issues, "borders."));
+  return { ...layout, borders: parsed.data };
+}
+
+/**
  * Computes the stamping layout of a stamp on a cloth (all lengths mm, areas m²). Band = cloth width − margins;
  * repeat cell = stamp + gap. Counts are exact for the run (pieces restart the layout); per-metre figures are
  * long-run averages of one period; waxed area = union of the wax shapes of all impressions clipped to the band,
@@ -67,9 +79,9 @@ export interface LayoutOptions {
   polygons?: PolygonBackend;
 }
 
-/** As computeLayout, for input already parsed with the engine's schema (the API parses its body once). */
-export function layoutOf(spec: LayoutSpec, options: LayoutOptions = {}): LayoutResult {
-  const { cloth, stamp, gap, sides } = spec;
+/** What every use of a parsed layout starts from: the checks, the stamp's shape, the field and border grids. */
+function prepare(spec: LayoutSpec) {
+  const { cloth, stamp, gap } = spec;
   const bandX0 = cloth.margins.leftMm;
   const bandX1 = cloth.widthMm - cloth.margins.rightMm;
   const band = bandX1 - bandX0;
@@ -77,7 +89,7 @@ export function layoutOf(spec: LayoutSpec, options: LayoutOptions = {}): LayoutR
   const pieceLength = cloth.lengthMm ?? cloth.pieceLengthMm ?? 0;
   const lengthField = cloth.lengthMm !== undefined ? "cloth.lengthMm" : "cloth.pieceLengthMm";
 
-  const shape = buildStampShape(stamp);
+  const shape = stampShape(stamp);
   const pattern = buildPattern(
     {
       arrangement: spec.arrangement,
@@ -98,20 +110,103 @@ export function layoutOf(spec: LayoutSpec, options: LayoutOptions = {}): LayoutR
   if (tallest > pieceLength + EPS_MM) {
     throw layoutError(lengthField, "stampLongerThanRun", { stampHeightMm: tallest, lengthMm: pieceLength });
   }
-  const plan = planBorders(spec.borders, bandX0, bandX1, pieceLength, spec.edges, lengthField);
+  const plan = planBorders(spec.borders, bandX0, bandX1, pieceLength, spec.edges, lengthField, stampShape);
   const fieldX0 = plan.fieldX0Mm;
   const fieldX1 = plan.fieldX1Mm;
   if (widest > fieldX1 - fieldX0 + EPS_MM) {
     throw layoutError("stamp.widthMm", "stampWiderThanFieldBand", { stampWidthMm: widest, fieldBandWidthMm: fieldX1 - fieldX0 });
   }
-  const windowStart = spec.window.startMm;
-  if (windowStart >= pieceLength) {
+  const grid = buildGrid(pattern, fieldX0, fieldX1, pieceLength, spec.align, spec.edges);
+  return { bandX0, bandX1, band, pieces, pieceLength, shape, pattern, plan, fieldX0, fieldX1, grid };
+}
+
+/** The window [startMm, startMm + lengthMm) of one piece, cut to the piece; refused when it starts past the end. */
+function windowOf(window: { startMm: number; lengthMm: number }, pieceLength: number) {
+  if (window.startMm >= pieceLength) {
     throw layoutError("window.startMm", "windowOutsideRun", { lengthMm: pieceLength });
   }
-  const windowEnd = Math.min(pieceLength, windowStart + spec.window.lengthMm);
+  return { startMm: window.startMm, endMm: Math.min(pieceLength, window.startMm + window.lengthMm) };
+}
+
+// A planner's picture asks for a new window at every pan and zoom: the stamp's shape (an outline parsed and
+// flattened) is kept for the last few stamps, so only the cheap impression list is made again.
+const shapeCache = new Map<string, StampShape>();
+const SHAPE_CACHE_SIZE = 8;
+
+function stampShape(stamp: StampSize, field?: string): StampShape {
+  const key = JSON.stringify([stamp.widthMm, stamp.heightMm, stamp.coverage ?? null, stamp.fillRule ?? "nonzero", field ?? "", stamp.outline ?? null]);
+  const known = shapeCache.get(key);
+  if (known) return known;
+  const shape = buildStampShape(stamp, field);
+  if (shapeCache.size >= SHAPE_CACHE_SIZE) shapeCache.delete(shapeCache.keys().next().value!);
+  shapeCache.set(key, shape);
+  return shape;
+}
+
+/** One layer of a picture: the strip its impressions are cut to and its stamp's wax shape (mm, stamp coordinates). */
+export interface PictureLayer {
+  layer: LayerName;
+  x0Mm: number;
+  x1Mm: number;
+  stampWidthMm: number;
+  stampHeightMm: number;
+  /** Path data of the wax shape (the outline, or the footprint rectangle) and its fill rule. */
+  pathData: string;
+  fillRule: "nonzero" | "evenodd";
+  /** The coverage ratio when the shape is the bare footprint, else 1. */
+  areaFactor: number;
+  source: StampShape["source"];
+}
+
+/** What a picture of one window of the first piece needs: the cloth, band and layers, and the impressions in it. */
+export interface LayoutPicture {
+  clothWidthMm: number;
+  bandMm: { x0: number; x1: number };
+  fieldBandMm: { x0: number; x1: number };
+  pieceLengthMm: number;
+  sides: 1 | 2;
+  window: { startMm: number; endMm: number };
+  layers: PictureLayer[];
+  impressions: Impression[];
+}
+
+/**
+ * The impressions of a window of the first piece (both faces when sides = 2) and the layers to draw them with,
+ * without measuring any area: cheap enough for every pan and zoom of a picture. Same checks as layoutOf.
+ */
+export function layoutPicture(spec: LayoutSpec, window: { startMm: number; lengthMm: number } = spec.window): LayoutPicture {
+  const p = prepare(spec);
+  const w = windowOf(window, p.pieceLength);
+  const listed = [{ layer: "field" as const, grid: p.grid, shape: p.shape }, ...p.plan.borders.map((b) => ({ layer: b.layer, grid: b.grid, shape: b.shape }))];
+  return {
+    clothWidthMm: spec.cloth.widthMm,
+    bandMm: { x0: p.bandX0, x1: p.bandX1 },
+    fieldBandMm: { x0: p.fieldX0, x1: p.fieldX1 },
+    pieceLengthMm: p.pieceLength,
+    sides: spec.sides,
+    window: w,
+    layers: listed.map((l) => ({
+      layer: l.layer,
+      x0Mm: l.grid.bandX0Mm,
+      x1Mm: l.grid.bandX1Mm,
+      stampWidthMm: l.shape.widthMm,
+      stampHeightMm: l.shape.heightMm,
+      pathData: l.shape.pathData,
+      fillRule: l.shape.fillRule,
+      areaFactor: l.shape.areaFactor,
+      source: l.shape.source,
+    })),
+    impressions: listImpressions(listed, w.startMm, w.endMm, spec.sides, spec.cloth.widthMm),
+  };
+}
+
+/** As computeLayout, for input already parsed with the engine's schema (the API parses its body once). */
+export function layoutOf(spec: LayoutSpec, options: LayoutOptions = {}): LayoutResult {
+  const { cloth, stamp, gap, sides } = spec;
+  const { bandX0, bandX1, band, pieces, pieceLength, shape, pattern, plan, fieldX0, fieldX1, grid } = prepare(spec);
+  const { startMm: windowStart, endMm: windowEnd } = windowOf(spec.window, pieceLength);
 
   const backend = options.polygons ?? polygonBackend();
-  const grid = buildGrid(pattern, fieldX0, fieldX1, pieceLength, spec.align, spec.edges);
   const rows = rowDetails(grid);
   const perMetre = perMetreCounts(grid);
   const source = areaSource(grid, shape, { dense: fieldDenseField(grid), complex: "stamp.outline" });

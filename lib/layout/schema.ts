@@ -129,53 +129,60 @@ export type StampSize = z.output<typeof stampSizeSchema>;
  * border is the left one's mirror image across the cloth (`rightCopy: "mirror"`, the default, so the pair reads
  * symmetrically), the left one turned 180° (`"turn"`), or the same (`"same"`).
  */
-export const borderSchema = z
-  .object(
-    {
-      side: z.enum(BORDER_SIDES, keyed),
-      stamp: stampSizeSchema,
-      turn: z.literal(BORDER_TURNS, keyed).default(0),
-      mirror: z.boolean(keyed).default(false),
-      rightCopy: z.enum(RIGHT_COPIES, keyed).optional(),
-      gapYMm: mm(-(STAMP_SIDE_MAX_MM - MIN_STEP_MM), GAP_MAX_MM).default(0),
-      gapToFieldMm: mm(BORDER_GAP_TO_FIELD_MIN_MM, GAP_MAX_MM).default(0),
-      offsetMm: mm(0, CLOTH_WIDTH_MAX_MM).default(0),
-      startMm: mm(0, STAMP_SIDE_MAX_MM + GAP_MAX_MM).default(0),
-    },
-    keyed,
-  )
-  .superRefine((b, ctx) => {
-    const laidHeight = b.turn === 90 || b.turn === 270 ? b.stamp.widthMm : b.stamp.heightMm;
-    const minGap = -(laidHeight - MIN_STEP_MM);
-    if (b.gapYMm < minGap) {
-      ctx.addIssue({ code: "custom", path: ["gapYMm"], message: "validation.gapTooNegative", params: { min: minGap } });
-    } else if (b.startMm >= laidHeight + b.gapYMm) {
-      const repeatMm = laidHeight + b.gapYMm;
-      ctx.addIssue({ code: "custom", path: ["startMm"], message: "layout.borderStartBeyondRepeat", params: { repeatMm } });
-    }
-    if (b.rightCopy !== undefined && b.side !== "both") {
-      ctx.addIssue({ code: "custom", path: ["rightCopy"], message: "layout.rightCopyNeedsBoth" });
-    }
-  });
+/** The fields of a border; the API body swaps the stamp for one that may name a library stamp by code. */
+export const borderShape = {
+  side: z.enum(BORDER_SIDES, keyed),
+  stamp: stampSizeSchema,
+  turn: z.literal(BORDER_TURNS, keyed).default(0),
+  mirror: z.boolean(keyed).default(false),
+  rightCopy: z.enum(RIGHT_COPIES, keyed).optional(),
+  gapYMm: mm(-(STAMP_SIDE_MAX_MM - MIN_STEP_MM), GAP_MAX_MM).default(0),
+  gapToFieldMm: mm(BORDER_GAP_TO_FIELD_MIN_MM, GAP_MAX_MM).default(0),
+  offsetMm: mm(0, CLOTH_WIDTH_MAX_MM).default(0),
+  startMm: mm(0, STAMP_SIDE_MAX_MM + GAP_MAX_MM).default(0),
+};
+
+/** The repeat down the strip: it must advance, and the first impression must start within one repeat. Needs the stamp's size. */
+export function checkBorderRepeat(b: { turn: number; stamp: { widthMm: number; heightMm: number }; gapYMm: number; startMm: number }, ctx: z.RefinementCtx) {
+  const laidHeight = b.turn === 90 || b.turn === 270 ? b.stamp.widthMm : b.stamp.heightMm;
+  const minGap = -(laidHeight - MIN_STEP_MM);
+  if (b.gapYMm < minGap) {
+    ctx.addIssue({ code: "custom", path: ["gapYMm"], message: "validation.gapTooNegative", params: { min: minGap } });
+  } else if (b.startMm >= laidHeight + b.gapYMm) {
+    const repeatMm = laidHeight + b.gapYMm;
+    ctx.addIssue({ code: "custom", path: ["startMm"], message: "layout.borderStartBeyondRepeat", params: { repeatMm } });
+  }
+}
+
+/** `rightCopy` says how the right border copies the left one, so it belongs to a border on both sides. */
+export function checkRightCopy(b: { side: BorderSide; rightCopy?: string }, ctx: z.RefinementCtx) {
+  if (b.rightCopy !== undefined && b.side !== "both") {
+    ctx.addIssue({ code: "custom", path: ["rightCopy"], message: "layout.rightCopyNeedsBoth" });
+  }
+}
+
+export const borderSchema = z.object(borderShape, keyed).superRefine((b, ctx) => {
+  checkBorderRepeat(b, ctx);
+  checkRightCopy(b, ctx);
+});
 
 export type BorderInput = z.input<typeof borderSchema>;
 export type BorderSpec = z.output<typeof borderSchema>;
 
+/** No edge twice: `both`, or one `left` and one `right` border. */
+export function checkBorderSides(borders: readonly { side: BorderSide }[], ctx: z.RefinementCtx) {
+  const taken = new Set<string>();
+  borders.forEach((b, k) => {
+    const edges = b.side === "both" ? ["left", "right"] : [b.side];
+    if (edges.some((e) => taken.has(e))) {
+      ctx.addIssue({ code: "custom", path: [k, "side"], message: "layout.borderSideTwice" });
+    }
+    for (const e of edges) taken.add(e);
+  });
+}
+
 /** Up to one border on each edge: `both`, or `left` and `right` (with stamps of their own). */
-const bordersSchema = z
-  .array(borderSchema, keyed)
-  .max(2, keyed)
-  .superRefine((borders, ctx) => {
-    const taken = new Set<string>();
-    borders.forEach((b, k) => {
-      const edges = b.side === "both" ? ["left", "right"] : [b.side];
-      if (edges.some((e) => taken.has(e))) {
-        ctx.addIssue({ code: "custom", path: [k, "side"], message: "layout.borderSideTwice" });
-      }
-      for (const e of edges) taken.add(e);
-    });
-  })
-  .default([]);
+export const bordersSchema = z.array(borderSchema, keyed).max(2, keyed).superRefine(checkBorderSides).default([]);
 
 /** The fields of a layout other than the stamp; the API body adds a library stamp by code. */
 export const layoutShape = {

@@ -1,4 +1,5 @@
 import type { Database } from "@/db";
+import { seedPlans } from "../seed/plans";
 import { seedScans } from "../seed/scans";
 import { seedStamps } from "../seed/stamps";
 import { demoUsers, seedUsers } from "../seed/users";
@@ -10,6 +11,7 @@ export async function seedDemo(db: Database) {
   await seedStamps(db);
   await seedScans(db, objectStoreFromEnv());
   await seedWax(db);
+  await seedPlans(db);
 }
 
 export function printSignIns(appUrl = process.env.APP_URL ?? "http://localhost:3000") {

@@ -27,7 +27,9 @@ describe("workshop settings", () => {
   it("start at the default time zone, Asia/Jakarta", async () => {
     const res = await api("GET", "/api/v1/settings", { session: sessions.admin });
     expect(res.status).toBe(200);
-    expect(res.body.settings).toMatchObject({ timeZone: "Asia/Jakarta", currency: "IDR" });
+    expect(res.body.settings).toMatchObject({ timeZone: "Asia/Jakarta", currency: "IDR", impressionsPerHour: 26 });
+    // The planner's cloths by default: mori 106 and 115 cm, 44 in cotton with 1 in margins (SPEC section 1).
+    expect(res.body.settings.clothPresets.map((p: { widthMm: number }) => p.widthMm)).toEqual([1060, 1150, 1117.6]);
     expect(res.body.version).toBeGreaterThanOrEqual(1);
   });
 
@@ -68,6 +70,22 @@ describe("workshop settings", () => {
     expect(same.body.version).toBe(body.version + 1);
     const [stored] = await db().select().from(workshopSettings);
     expect(stored.values).toMatchObject({ timeZone: "Asia/Makassar", currency: "IDR" });
+  });
+
+  it("keep the planner's cloth presets and stamping rate, refusing names twice and rates out of range", async () => {
+    const { body } = await api("GET", "/api/v1/settings", { session: sessions.admin });
+    const presets = [
+      { name: "Mori 106 cm", widthMm: 1060, marginMm: 0 },
+      { name: "Primissima 110 cm", widthMm: 1100, marginMm: 15 },
+    ];
+    const saved = await api("PATCH", "/api/v1/settings", { session: sessions.admin, body: { version: body.version, clothPresets: presets, impressionsPerHour: 40 } });
+    expect(saved.status).toBe(200);
+    expect(saved.body.settings).toMatchObject({ clothPresets: presets, impressionsPerHour: 40 });
+    const twice = await api("PATCH", "/api/v1/settings", { session: sessions.admin, body: { version: saved.body.version, clothPresets: [presets[0], { ...presets[1], name: "mori 106 CM" }], impressionsPerHour: 0 } });
+    expect(twice.status).toBe(400);
+    expect(Object.keys(twice.body.error.fields).sort()).toEqual(["clothPresets.1.name", "impressionsPerHour"]);
+    const back = await api("PATCH", "/api/v1/settings", { session: sessions.admin, body: { version: saved.body.version, clothPresets: [{ name: "Mori 106 cm", widthMm: 1060, marginMm: 0 }, { name: "Mori 115 cm", widthMm: 1150, marginMm: 0 }, { name: "Cotton 44 in", widthMm: 1117.6, marginMm: 25.4 }], impressionsPerHour: 26 } });
+    expect(back.status).toBe(200);
   });
 
   it("format the times in e-mails in the workshop's zone", async () => {

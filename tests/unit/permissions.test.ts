@@ -7,6 +7,7 @@ const spec: Record<string, string[]> = {
   "settings:manage": ["admin"], // workshop settings (time zone, currency, cloth presets, stamping rate)
   "stamps:write": ["admin", "keeper"],
   "stamps:request": ["admin", "keeper", "planner", "waxmaster", "designer"],
+  "stamps:requestNew": ["admin", "keeper", "planner", "designer"], // request a new stamp (planners: request only)
   "plans:write": ["admin", "planner"],
   "wax:write": ["admin", "waxmaster"],
   "motifs:write": ["admin", "keeper", "designer"],

@@ -9,8 +9,21 @@ import * as layout from "./layout/route";
 import * as locations from "./locations/route";
 import * as locationsId from "./locations/[id]/route";
 import * as me from "./me/route";
+import * as newStampRequests from "./new-stamp-requests/route";
+import * as newStampRequestsIdDecline from "./new-stamp-requests/[id]/decline/route";
 import * as openapi from "./openapi.json/route";
+import * as plans from "./plans/route";
+import * as plansStamps from "./plans/stamps/route";
+import * as plansStampsCode from "./plans/stamps/[code]/route";
+import * as plansId from "./plans/[id]/route";
+import * as plansIdDuplicate from "./plans/[id]/duplicate/route";
+import * as plansIdHistory from "./plans/[id]/history/route";
+import * as plansIdRecompute from "./plans/[id]/recompute/route";
 import * as settings from "./settings/route";
+import * as stampRequests from "./stamp-requests/route";
+import * as stampRequestsId from "./stamp-requests/[id]/route";
+import * as stampRequestsIdAccept from "./stamp-requests/[id]/accept/route";
+import * as stampRequestsIdDecline from "./stamp-requests/[id]/decline/route";
 import * as stamps from "./stamps/route";
 import * as stampsExport from "./stamps/export/route";
 import * as stampsImport from "./stamps/import/route";
@@ -68,8 +81,21 @@ export const routeModules: RouteModule[] = [
   { path: "/api/v1/locations", handlers: locations },
   { path: "/api/v1/locations/{id}", handlers: locationsId },
   { path: "/api/v1/me", handlers: me },
+  { path: "/api/v1/new-stamp-requests", handlers: newStampRequests },
+  { path: "/api/v1/new-stamp-requests/{id}/decline", handlers: newStampRequestsIdDecline },
   { path: "/api/v1/openapi.json", handlers: openapi },
+  { path: "/api/v1/plans", handlers: plans },
+  { path: "/api/v1/plans/stamps", handlers: plansStamps },
+  { path: "/api/v1/plans/stamps/{code}", handlers: plansStampsCode },
+  { path: "/api/v1/plans/{id}", handlers: plansId },
+  { path: "/api/v1/plans/{id}/duplicate", handlers: plansIdDuplicate },
+  { path: "/api/v1/plans/{id}/history", handlers: plansIdHistory },
+  { path: "/api/v1/plans/{id}/recompute", handlers: plansIdRecompute },
   { path: "/api/v1/settings", handlers: settings },
+  { path: "/api/v1/stamp-requests", handlers: stampRequests },
+  { path: "/api/v1/stamp-requests/{id}", handlers: stampRequestsId },
+  { path: "/api/v1/stamp-requests/{id}/accept", handlers: stampRequestsIdAccept },
+  { path: "/api/v1/stamp-requests/{id}/decline", handlers: stampRequestsIdDecline },
   { path: "/api/v1/stamps", handlers: stamps },
   { path: "/api/v1/stamps/export", handlers: stampsExport },
   { path: "/api/v1/stamps/import", handlers: stampsImport },

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, eq } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
-import { locations, stamps, type Stamp } from "@/db/schema";
+import { locations, planStamps, plans, stamps, type Stamp } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
 import { type Condition } from "@/lib/stamps/condition";
@@ -9,7 +9,7 @@ import type { CreateStampInput, UpdateStampInput } from "@/lib/validation/stamps
 import { deleteObjects } from "@/lib/s3";
 import { scanObjectKeys } from "../scans";
 import { locationLabel } from "@/lib/stamps/format";
-import { isUniqueViolation, recordEvent } from "./events";
+import { isForeignKeyViolation, isUniqueViolation, recordEvent } from "./events";
 import { bump, findStamp, locationOrFail, openCheckoutOf } from "./shared";
 import { checkConditionChange, recordConditionChange } from "./condition";
 
@@ -181,14 +181,30 @@ export async function updateStamp(actor: Actor, code: string, patch: UpdateStamp
   return options.tx ? work(options.tx) : db.transaction(work);
 }
 
+/** Refuses (409 stampInPlans, naming them) to delete a stamp that cloth plans use; the foreign keys back this up. */
+async function refuseIfInPlans(tx: Transaction, stampId: string) {
+  const using = await tx.selectDistinct({ id: plans.id, name: plans.name }).from(planStamps).innerJoin(plans, eq(plans.id, planStamps.planId)).where(eq(planStamps.stampId, stampId)).orderBy(plans.name);
+  if (using.length === 0) return;
+  const names = using.slice(0, 5).map((p) => `“${p.name}”`);
+  if (using.length > 5) names.push("…");
+  throw new AppError("stampInPlans", { count: using.length, plans: names.join(", ") }, undefined, { plans: using });
+}
+
 export async function deleteStamp(actor: Actor, code: string, version?: number) {
   assertCan(actor, "stamps:write");
   const scanKeys = await db.transaction(async (tx) => {
     const stamp = await findStamp(tx, code, true);
     if (version !== undefined && version !== stamp.version) throw new AppError("versionConflict");
     if (await openCheckoutOf(tx, stamp.id)) throw new AppError("stampCheckedOut");
+    await refuseIfInPlans(tx, stamp.id);
     const keys = await scanObjectKeys(stamp.id, tx);
-    await tx.delete(stamps).where(eq(stamps.id, stamp.id));
+    try {
+      await tx.delete(stamps).where(eq(stamps.id, stamp.id));
+    } catch (error) {
+      // A plan saved in between: the foreign key refuses; say which plans.
+      if (isForeignKeyViolation(error)) await refuseIfInPlans(db as unknown as Transaction, stamp.id);
+      throw error;
+    }
     return keys;
   });
   // The rows went with the stamp (cascade); the files go once the delete is committed.

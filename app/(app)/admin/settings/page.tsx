@@ -17,12 +17,17 @@ export default async function WorkshopSettingsPage() {
   const actor = await requirePageActor();
   if (!can(actor.role, "settings:manage")) return <Forbidden />;
   const [t, format, page] = await Promise.all([getTranslations("settings"), getFormatter(), getSettingsPage(actor)]);
-  const shown = (value: unknown) => (value === null || value === undefined ? t("history.unset") : String(value));
+  const shown = (value: unknown) =>
+    value === null || value === undefined
+      ? t("history.unset")
+      : Array.isArray(value)
+        ? value.map((p: { name?: string; widthMm?: number }) => `${p.name ?? ""} (${p.widthMm ?? ""} mm)`).join(", ")
+        : String(value);
   return (
     <>
       <PageHeader title={t("title")} intro={t("intro")} />
       <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
-        <Panel title={t("timeTitle")} intro={t("timeIntro")}>
+        <Panel title={t("formLabel")} intro={t("timeIntro")}>
           <SettingsForm settings={page.settings} version={page.version} timeZones={timeZoneNames()} />
         </Panel>
         <Panel title={t("history.title")}>

@@ -21,6 +21,12 @@ export function SettingsForm({ settings, version, timeZones }: { settings: Works
   const [state, action, pending] = useActionState(updateSettingsAction, initialFormState);
   const failed = state.status === "error";
   const [timeZone, setTimeZone] = useState(failed ? (state.values?.timeZone ?? settings.timeZone) : settings.timeZone);
+  const errorsAt = (path: string) => state.fieldErrors?.[path];
+  // The saved cloths and one blank row to add another; a refused form shows what was typed.
+  const typed = failed && state.valueLists ? state.valueLists : null;
+  const presetRows = typed
+    ? (typed.presetName ?? []).map((name, k) => ({ name, widthMm: typed.presetWidthMm?.[k] ?? "", marginMm: typed.presetMarginMm?.[k] ?? "" }))
+    : [...settings.clothPresets.map((p) => ({ name: p.name, widthMm: String(p.widthMm), marginMm: String(p.marginMm) })), { name: "", widthMm: "", marginMm: "" }];
   // Pages rendered for this save still carry the old zone; the next render has the new one.
   useEffect(() => {
     if (state.status === "success") router.refresh();
@@ -53,6 +59,29 @@ export function SettingsForm({ settings, version, timeZones }: { settings: Works
             options={currencies.map((c) => ({ value: c, label: t(`fields.currency.options.${c}`) }))}
           />
         )}
+      </Field>
+      <fieldset className="space-y-2" aria-describedby="settings-presets-hint">
+        <legend className="text-sm font-medium text-stone-800">{t("fields.clothPresets.label")}</legend>
+        <p id="settings-presets-hint" className="text-xs text-stone-500">
+          {t("fields.clothPresets.hint")}
+        </p>
+        {presetRows.map((p, k) => (
+          <div key={k} className="grid grid-cols-[2fr_1fr_1fr] gap-2" role="group" aria-label={t("fields.clothPresets.row", { n: k + 1 })}>
+            <Field id={`settings-preset-${k}-name`} label={t("fields.clothPresets.name")} errors={errorsAt(`clothPresets.${k}.name`)}>
+              {(aria) => <input {...aria} name="presetName" autoComplete="off" defaultValue={p.name} />}
+            </Field>
+            <Field id={`settings-preset-${k}-width`} label={t("fields.clothPresets.widthMm")} errors={errorsAt(`clothPresets.${k}.widthMm`)}>
+              {(aria) => <input {...aria} name="presetWidthMm" inputMode="decimal" autoComplete="off" defaultValue={p.widthMm} />}
+            </Field>
+            <Field id={`settings-preset-${k}-margin`} label={t("fields.clothPresets.marginMm")} errors={errorsAt(`clothPresets.${k}.marginMm`)}>
+              {(aria) => <input {...aria} name="presetMarginMm" inputMode="decimal" autoComplete="off" defaultValue={p.marginMm} />}
+            </Field>
+          </div>
+        ))}
+        {state.fieldErrors?.clothPresets ? <p className="text-sm text-red-700">{state.fieldErrors.clothPresets.join(" ")}</p> : null}
+      </fieldset>
+      <Field id="settings-rate" label={t("fields.impressionsPerHour.label")} hint={t("fields.impressionsPerHour.hint")} errors={state.fieldErrors?.impressionsPerHour}>
+        {(aria) => <input {...aria} name="impressionsPerHour" inputMode="decimal" autoComplete="off" defaultValue={failed ? (state.values?.impressionsPerHour ?? "") : String(settings.impressionsPerHour)} />}
       </Field>
       <Button type="submit" disabled={pending}>
         {pending ? t("saving") : t("save")}

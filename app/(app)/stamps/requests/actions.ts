@@ -1,0 +1,56 @@
+"use server";
+
+import { getTranslations } from "next-intl/server";
+import { revalidatePath } from "next/cache";
+import type { FormState } from "@/lib/actions/form-state";
+import { runForm } from "@/lib/actions/run-form";
+import { declineFormInput } from "@/lib/contracts/plans";
+import { acceptStampRequest, declineNewStampRequest, declineStampRequest } from "@/lib/data/requests";
+import { requirePermission } from "@/lib/session";
+import { z } from "@/lib/zod";
+import { acceptRequestSchema, declineRequestSchema } from "@/lib/validation/plans";
+
+const id = z.uuid("validation.notFound");
+const acceptSchema = acceptRequestSchema.extend({ id });
+const declineSchema = declineRequestSchema.extend({ id });
+
+/** A keeper accepts a stamp request: every stamp checked out now (or on its first day), or none. */
+export async function acceptRequestAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  return runForm(formData, acceptSchema, async ({ id: requestId, version }) => {
+    const actor = await requirePermission("stamps:write");
+    const request = await acceptStampRequest(actor, requestId, version);
+    revalidatePath("/stamps/requests");
+    const t = await getTranslations("requests");
+    return { status: "success", message: request.state === "checked_out" ? t("queue.checkedOut") : t("queue.accepted") };
+  });
+}
+
+/** A keeper declines a stamp request with a reason the requester reads. */
+export async function declineRequestAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  return runForm(
+    formData,
+    declineSchema,
+    async ({ id: requestId, ...input }) => {
+      const actor = await requirePermission("stamps:write");
+      await declineStampRequest(actor, requestId, input);
+      revalidatePath("/stamps/requests");
+      return { status: "success", message: (await getTranslations("requests"))("queue.declined") };
+    },
+    (f) => ({ id: f.get("id"), ...declineFormInput(f) }),
+  );
+}
+
+/** A keeper declines a new-stamp request with a reason. */
+export async function declineNewStampAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  return runForm(
+    formData,
+    declineSchema,
+    async ({ id: requestId, ...input }) => {
+      const actor = await requirePermission("stamps:write");
+      await declineNewStampRequest(actor, requestId, input);
+      revalidatePath("/stamps/requests");
+      return { status: "success", message: (await getTranslations("requests"))("queue.declined") };
+    },
+    (f) => ({ id: f.get("id"), ...declineFormInput(f) }),
+  );
+}
