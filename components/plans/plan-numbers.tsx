@@ -49,12 +49,13 @@ export function PlanNumbers({ summary, unitSystem, impressionsPerHour, byPieces,
       label: t("hours"),
       value: (
         <>
-          {t("hoursValue", { total: num(time.hoursTotal, 1), perPiece: num(time.hoursPerPiece, 2), perPieceImpressions: num(time.impressionsPerPiece, 0) })}
+          {t("hoursValue", { hours: num(time.hoursTotal, 1), perPiece: num(time.hoursPerPiece, 2), perPieceImpressions: num(time.impressionsPerPiece, 0) })}
           <span className="block text-xs text-stone-500">{t("hoursRate", { rate: impressionsPerHour })}</span>
         </>
       ),
     },
   ];
+  // i18n-keys: plans.layers.*
   const layerName = (layer: LayerName) => tl(layer);
   return (
     <div className="space-y-3" data-testid="plan-numbers">

@@ -15,6 +15,9 @@ const textArguments = new Set([
   "setting", "site", "size", "source", "status", "tag", "timeZone", "to", "type", "typed", "unit", "until", "url", "when",
   "workstation",
   // the wax room's quantities, written by format.number and the unit helpers before they reach the message
+  // the plans' lengths, names and dates, written before they reach the message
+  "area", "band", "changes", "fromOn", "forWhom", "group", "hours", "keeper", "kodi", "left", "length", "path", "perPiece", "perPieceImpressions",
+  "pieceLength", "plan", "plans", "requester", "right", "state", "stamps", "today", "twin", "untilOn", "who", "width", "yards", "gap",
   "amount", "cloth", "currency", "day", "density", "flash", "grams", "level", "limit", "metres", "onHand", "price", "rate", "recipe", "se",
 ]);
 

@@ -153,7 +153,7 @@ export function PlansTable({ unitSystem, canWrite }: { unitSystem: UnitSystem; c
         </label>
         <label className="space-y-1 text-sm">
           <span className="block font-medium text-stone-800">{t("plans.table.stamp")}</span>
-          <input value={stampFilter} onChange={(e) => setStampFilter(e.target.value)} className="w-36 rounded-md border border-stone-300 bg-white px-3 py-2 font-mono text-sm uppercase" placeholder="CP-0001" />
+          <input value={stampFilter} onChange={(e) => setStampFilter(e.target.value)} className="w-36 rounded-md border border-stone-300 bg-white px-3 py-2 font-mono text-sm uppercase" placeholder={t("plans.table.stampFilterExample")} />
         </label>
         <label className="space-y-1 text-sm">
           <span className="block font-medium text-stone-800">{t("plans.table.arrangement")}</span>

@@ -96,7 +96,7 @@ describe("the planner form adapter", () => {
     // Indonesian writes the decimal comma (CLDR).
     expect(fractionInput("0,5", "id")).toBe(0.5);
     expect(fractionText(0.5, "en")).toBe("1/2");
-    expect(fractionText(0.3, "id")).toBe("0,3");
+    expect(fractionText(0.123, "id")).toBe("0,123");
     expect(planFieldErrors({ "layout.cloth.widthMm": ["a"], "borders.0.gapYMm": ["b"], "layout.somethingElse": ["c"] })).toEqual({ clothWidth: ["a"], borderGapY: ["b"], _form: ["c"] });
   });
   it("draws each border's picture on its own edges", () => {

@@ -58,10 +58,10 @@ export default async function StampingSheetPage({ params, searchParams }: Props)
         </Link>
         <nav aria-label={t("plans.sheet.paper")} className="flex gap-2 text-sm">
           <Link href={planPages.sheet(plan.id, "a4")} aria-current={paper === "a4" ? "page" : undefined} className="rounded border border-stone-300 px-2 py-1 aria-[current=page]:bg-stone-200">
-            A4
+            {t("plans.sheet.paperA4")}
           </Link>
           <Link href={planPages.sheet(plan.id, "letter")} aria-current={paper === "letter" ? "page" : undefined} className="rounded border border-stone-300 px-2 py-1 aria-[current=page]:bg-stone-200">
-            Letter
+            {t("plans.sheet.paperLetter")}
           </Link>
         </nav>
         <PrintSheetButton label={t("plans.sheet.print")} />
@@ -111,7 +111,7 @@ export default async function StampingSheetPage({ params, searchParams }: Props)
               <dt>{t("plans.numbers.impressionsPerMetre")}</dt>
               <dd className="tabular-nums">{num(s.impressionsPerMetre, 2)}</dd>
               <dt>{t("plans.numbers.hours")}</dt>
-              <dd>{t("plans.numbers.hoursValue", { total: num(time.hoursTotal, 1), perPiece: num(time.hoursPerPiece, 2), perPieceImpressions: num(time.impressionsPerPiece, 0) })}</dd>
+              <dd>{t("plans.numbers.hoursValue", { hours: num(time.hoursTotal, 1), perPiece: num(time.hoursPerPiece, 2), perPieceImpressions: num(time.impressionsPerPiece, 0) })}</dd>
             </dl>
           </section>
           <section>
