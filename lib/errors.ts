@@ -38,6 +38,9 @@ export const errorStatus = {
   scanUploadMissing: 409,
   settingsConflict: 409,
   lastAdmin: 409,
+  motifInUse: 409,
+  collectionInUse: 409,
+  collectionTaken: 409,
   internal: 500,
 } as const;
 

@@ -3,3 +3,4 @@ export * from "./users";
 export * from "./stamps";
 export * from "./scans";
 export * from "./settings";
+export * from "./motifs";

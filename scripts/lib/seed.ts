@@ -1,4 +1,5 @@
 import type { Database } from "@/db";
+import { seedMotifs } from "../seed/motifs";
 import { seedScans } from "../seed/scans";
 import { seedStamps } from "../seed/stamps";
 import { demoUsers, seedUsers } from "../seed/users";
@@ -8,6 +9,7 @@ export async function seedDemo(db: Database) {
   await seedUsers(db);
   await seedStamps(db);
   await seedScans(db, objectStoreFromEnv());
+  await seedMotifs(db);
 }
 
 export function printSignIns(appUrl = process.env.APP_URL ?? "http://localhost:3000") {

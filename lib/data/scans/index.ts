@@ -5,3 +5,4 @@ export { getScan, listScans, scanImage, scanOriginal, type ObjectStream } from "
 export { completeScanUpload, deleteScan, presignScanUpload } from "./upload";
 export { coverageOverlay, previewCoverage, saveCoverage } from "./review";
 export { similarStamps } from "./look-alikes";
+export { similarToPicture, similarToStamp } from "./similar";

@@ -1,0 +1,1 @@
+ALTER TABLE "stamp_scans" ADD COLUMN "signature" "bytea";
