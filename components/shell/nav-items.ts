@@ -1,8 +1,9 @@
 import type { Permission } from "@/lib/permissions";
 
 /** The areas in the navigation; add an area here when its pages exist. */
-export const navItems: { href: string; labelKey: "home" | "stamps" | "admin"; permission: Permission }[] = [
+export const navItems: { href: string; labelKey: "home" | "stamps" | "motifs" | "admin"; permission: Permission }[] = [
   { href: "/", labelKey: "home", permission: "data:read" },
   { href: "/stamps", labelKey: "stamps", permission: "data:read" },
+  { href: "/motifs", labelKey: "motifs", permission: "data:read" },
   { href: "/admin", labelKey: "admin", permission: "users:manage" },
 ];

@@ -8,12 +8,13 @@ import type enPeople from "./messages/en/people.json";
 import type enScans from "./messages/en/scans.json";
 import type enShell from "./messages/en/shell.json";
 import type enStamps from "./messages/en/stamps.json";
+import type enMotifs from "./messages/en/motifs.json";
 
 // Message keys are typed from the English catalogue: a key that does not exist (also one built
 // from a template) fails `npm run typecheck`.
 declare module "next-intl" {
   interface AppConfig {
     Formats: { dateTime: typeof dateTimeFormats };
-    Messages: typeof enApi & typeof enAuth & typeof enEmails & typeof enErrors & typeof enLayout & typeof enPeople & typeof enScans & typeof enShell & typeof enStamps;
+    Messages: typeof enApi & typeof enAuth & typeof enEmails & typeof enErrors & typeof enLayout & typeof enPeople & typeof enScans & typeof enShell & typeof enStamps & typeof enMotifs;
   }
 }

@@ -9,6 +9,7 @@ import enScans from "./messages/en/scans.json";
 import enShell from "./messages/en/shell.json";
 import enStamps from "./messages/en/stamps.json";
 import enWax from "./messages/en/wax.json";
+import enMotifs from "./messages/en/motifs.json";
 import idApi from "./messages/id/api.json";
 import idAuth from "./messages/id/auth.json";
 import idEmails from "./messages/id/emails.json";
@@ -19,6 +20,7 @@ import idScans from "./messages/id/scans.json";
 import idShell from "./messages/id/shell.json";
 import idStamps from "./messages/id/stamps.json";
 import idWax from "./messages/id/wax.json";
+import idMotifs from "./messages/id/motifs.json";
 
 /**
  * Languages that have a catalogue. `locales` in config.ts lists the ones people can choose; a
@@ -31,8 +33,8 @@ export type CatalogueLocale = Locale | "id";
 // tests/unit/catalogue.test.ts checks no namespace is defined twice, and
 // tests/unit/catalogue-parity.test.ts that the two languages have the same keys and placeholders.
 export const catalogueFiles = {
-  en: [enShell, enAuth, enPeople, enErrors, enEmails, enLayout, enStamps, enScans, enApi, enWax],
-  id: [idShell, idAuth, idPeople, idErrors, idEmails, idLayout, idStamps, idScans, idApi, idWax],
+  en: [enShell, enAuth, enPeople, enErrors, enEmails, enLayout, enStamps, enScans, enApi, enWax, enMotifs],
+  id: [idShell, idAuth, idPeople, idErrors, idEmails, idLayout, idStamps, idScans, idApi, idWax, idMotifs],
 } satisfies Record<CatalogueLocale, object[]>;
 
 const merge = (files: object[]) => Object.assign({}, ...files) as Record<string, unknown>;

@@ -6,6 +6,7 @@ import { CLOSE_DISTANCE } from "@/lib/scans";
 import { createUser } from "../helpers/db";
 import { testEnv } from "../helpers/env";
 import { api, signIn, type Session } from "../helpers/http";
+import { uploadScan } from "../helpers/scan-upload";
 import { createStampRow, uniquePrefix } from "../helpers/stamps";
 
 // POST /api/v1/similar over HTTP: pictures against the stored signatures of uploaded scans.
@@ -22,15 +23,7 @@ beforeAll(async () => {
   keeper = sessions.keeper;
 });
 
-async function upload(code: string, bytes: Buffer, kind: "print" | "face" = "print") {
-  const fileName = kind === "print" ? "print.png" : "face.jpg";
-  const presign = await api("POST", `/api/v1/stamps/${code}/scans/uploads`, { session: keeper, body: { fileName, sizeBytes: bytes.length } });
-  expect(presign.status).toBe(201);
-  const { url, method, headers } = presign.body.upload;
-  expect((await fetch(url, { method, headers, body: new Uint8Array(bytes) })).ok).toBe(true);
-  const done = await api("POST", `/api/v1/stamps/${code}/scans`, { session: keeper, body: { uploadKey: presign.body.upload.key, fileName, kind } });
-  expect(done.status, JSON.stringify(done.body)).toBe(201);
-}
+const upload = (code: string, bytes: Buffer, kind: "print" | "face" = "print") => uploadScan(keeper, code, bytes, kind);
 
 const search = (bytes: Uint8Array, session: Session, query = "", contentType = "image/png") =>
   api("POST", `/api/v1/similar${query}`, { session, rawBody: bytes, headers: { "content-type": contentType } });

@@ -17,6 +17,7 @@ import {
 } from "@/lib/contracts/motifs";
 import { scanUrls } from "@/lib/contracts/scans";
 import { isUniqueViolation } from "@/lib/data/stamps/events";
+import { similarToStamp } from "@/lib/data/scans/similar";
 import type { CollectionInput, CreateMotifInput, MotifListQuery, UpdateCollectionInput, UpdateMotifInput } from "@/lib/validation/motifs";
 
 // The motif archive's data layer: motifs with their stamp sets, colourways and collections, their history,
@@ -436,14 +437,36 @@ export async function deleteCollection(actor: Actor, id: string): Promise<void> 
   });
 }
 
-/** Motifs whose stamps look like this motif's main stamp (search by picture on its scans). */
-export async function motifsOfStamps(stampCodes: string[]): Promise<Map<string, { id: string; name: string }>> {
-  if (stampCodes.length === 0) return new Map();
+/** Other motifs whose stamps look like this motif's main stamp, nearest first (search by picture on its scans). */
+export async function similarMotifs(actor: Actor, motifId: string, limit = 6): Promise<Array<{ id: string; name: string; distance: number; mirrored: boolean; stampCode: string; thumb: string }>> {
+  assertCan(actor, "data:read");
+  const [main] = await db.select({ stampId: motifStamps.stampId }).from(motifStamps).where(and(eq(motifStamps.motifId, motifId), eq(motifStamps.role, "main")));
+  if (!main) return [];
+  const own = new Set((await db.select({ stampId: motifStamps.stampId }).from(motifStamps).where(eq(motifStamps.motifId, motifId))).map((r) => r.stampId));
+  const matches = await similarToStamp(actor, main.stampId, 24);
+  const codes = matches.map((m) => m.stampCode);
+  if (codes.length === 0) return [];
   const rows = await db
-    .select({ code: stamps.code, id: motifs.id, name: motifs.name })
+    .select({ code: stamps.code, stampId: stamps.id, id: motifs.id, name: motifs.name })
     .from(motifStamps)
     .innerJoin(stamps, eq(stamps.id, motifStamps.stampId))
     .innerJoin(motifs, eq(motifs.id, motifStamps.motifId))
-    .where(inArray(stamps.code, stampCodes));
-  return new Map(rows.map((r) => [r.code, { id: r.id, name: r.name }]));
+    .where(inArray(stamps.code, codes));
+  const seen = new Set<string>([motifId]);
+  const out = [];
+  for (const m of matches) {
+    for (const r of rows.filter((x) => x.code === m.stampCode && !own.has(x.stampId))) {
+      if (seen.has(r.id)) continue;
+      seen.add(r.id);
+      out.push({ id: r.id, name: r.name, distance: m.distance, mirrored: m.mirrored, stampCode: m.stampCode, thumb: m.urls.thumb });
+    }
+  }
+  return out.slice(0, limit);
+}
+
+/** Every motif's name by id (the picture search names the motif a matched stamp belongs to). */
+export async function motifNames(actor: Actor): Promise<Record<string, string>> {
+  assertCan(actor, "data:read");
+  const rows = await db.select({ id: motifs.id, name: motifs.name }).from(motifs);
+  return Object.fromEntries(rows.map((r) => [r.id, r.name]));
 }
