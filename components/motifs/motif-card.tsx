@@ -14,7 +14,7 @@ export function MotifCard({ motif }: { motif: MotifSummaryDto }) {
         // eslint-disable-next-line @next/next/no-img-element -- thumbnails come from our API
         <img src={thumb} alt="" loading="lazy" className="aspect-[4/3] w-full bg-stone-100 object-contain" />
       ) : (
-        <div className="flex aspect-[4/3] w-full items-center justify-center bg-stone-100 text-xs text-stone-500">{t("card.noScan")}</div>
+        <div className="flex aspect-[4/3] w-full items-center justify-center bg-stone-100 text-xs text-stone-600">{t("card.noScan")}</div>
       )}
       <div className="space-y-1 p-3 text-sm">
         <h2 className="font-semibold text-stone-900 group-hover:underline">{motif.name}</h2>

@@ -103,6 +103,22 @@ describe("a designer in the motif archive", () => {
   });
 });
 
+describe("the stamp shelf in pictures", () => {
+  it("shows the table's filtered stamps as cards with their scans", async () => {
+    const { appUrl } = testEnv();
+    const designer = await createUser("designer");
+    const page = await browser.newPage();
+    await signInThroughPage(page, designer.email, designer.password);
+    await page.goto(`${appUrl}/stamps/pictures?q=${encodeURIComponent(prefix)}`);
+    const cards = page.getByTestId("stamp-pictures").locator("li");
+    await expect(cards.count()).resolves.toBe(3);
+    const text = await page.getByTestId("stamp-pictures").textContent();
+    for (const code of Object.values(codes)) expect(text).toContain(code);
+    await expect(page.getByTestId("stamp-pictures").locator("img").count()).resolves.toBe(2);
+    await page.close();
+  });
+});
+
 describe("the motif form", () => {
   it("adds a motif from valid input and shows it", async () => {
     const { appUrl } = testEnv();

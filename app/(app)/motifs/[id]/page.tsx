@@ -82,7 +82,7 @@ export default async function MotifPage({ params, searchParams }: { params: Prom
                         // eslint-disable-next-line @next/next/no-img-element -- thumbnails come from our API
                         <img src={s.thumb} alt="" loading="lazy" className="aspect-square w-full rounded border border-stone-200 bg-stone-100 object-contain group-hover:border-ink-400" />
                       ) : (
-                        <div className="flex aspect-square w-full items-center justify-center rounded border border-stone-200 bg-stone-100 text-xs text-stone-500">{t("motifs.card.noScan")}</div>
+                        <div className="flex aspect-square w-full items-center justify-center rounded border border-stone-200 bg-stone-100 text-xs text-stone-600">{t("motifs.card.noScan")}</div>
                       )}
                       <span className="mt-1 block font-mono text-ink-700 group-hover:underline">{s.code}</span>
                       <span className="block text-stone-600">
