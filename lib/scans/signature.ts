@@ -310,16 +310,6 @@ function massRange(profile: Float64Array, tail: number): [number, number] {
   return first <= last ? [first, last] : [0, profile.length - 1];
 }
 
-/** Bilinear sample of a map at (x, y) in pixel-centre coordinates; 0 outside. */
-function sample(map: Float32Array, width: number, height: number, x: number, y: number): number {
-  const x0 = Math.floor(x);
-  const y0 = Math.floor(y);
-  const fx = x - x0;
-  const fy = y - y0;
-  const at = (xx: number, yy: number) => (xx < 0 || yy < 0 || xx >= width || yy >= height ? 0 : map[yy * width + xx]);
-  return (at(x0, y0) * (1 - fx) + at(x0 + 1, y0) * fx) * (1 - fy) + (at(x0, y0 + 1) * (1 - fx) + at(x0 + 1, y0 + 1) * fx) * fy;
-}
-
 /** Zero mean, then scaled to length `norm` (all zero stays zero), in place. */
 function centre(values: Float32Array, from: number, to: number, norm: number) {
   let mean = 0;
@@ -384,7 +374,26 @@ export function signatureAt(maps: MotifMaps, angleDeg = 0): MotifSignature {
       const x = crop.cx + u * crop.c - v * crop.s;
       const y = crop.cy + u * crop.s + v * crop.c;
       const cell = row + Math.floor(i / SUBSAMPLES);
-      for (let k = 0; k < channels.length; k++) raw[k * n + cell] += sample(channels[k], maps.width, maps.height, x, y);
+      // Bilinear weights once for the three channels; outside the picture counts as 0.
+      const x0 = Math.floor(x);
+      const y0 = Math.floor(y);
+      const fx = x - x0;
+      const fy = y - y0;
+      const w = maps.width;
+      const inX0 = x0 >= 0 && x0 < w;
+      const inX1 = x0 + 1 >= 0 && x0 + 1 < w;
+      const inY0 = y0 >= 0 && y0 < maps.height;
+      const inY1 = y0 + 1 >= 0 && y0 + 1 < maps.height;
+      const w00 = inX0 && inY0 ? (1 - fx) * (1 - fy) : 0;
+      const w10 = inX1 && inY0 ? fx * (1 - fy) : 0;
+      const w01 = inX0 && inY1 ? (1 - fx) * fy : 0;
+      const w11 = inX1 && inY1 ? fx * fy : 0;
+      if (w00 + w10 + w01 + w11 === 0) continue;
+      const i00 = y0 * w + x0;
+      for (let k = 0; k < channels.length; k++) {
+        const c = channels[k];
+        raw[k * n + cell] += (w00 && c[i00]) * w00 + (w10 && c[i00 + 1]) * w10 + (w01 && c[i00 + w]) * w01 + (w11 && c[i00 + w + 1]) * w11;
+      }
     }
   }
   const grid = new Float32Array(SIGNATURE_LENGTH);
