@@ -47,6 +47,9 @@ export const errorStatus = {
   requestAnswered: 409,
   requestStampsUnavailable: 409,
   requestStampsReserved: 409,
+  motifInUse: 409,
+  collectionInUse: 409,
+  collectionTaken: 409,
   internal: 500,
 } as const;
 

@@ -8,7 +8,6 @@ import { Button } from "@/components/ui/button";
 import { cn } from "@/components/ui/cn";
 import { Notice } from "@/components/ui/notice";
 import { scanUrls, type ScanDto } from "@/lib/contracts/scans";
-import { LOOK_ALIKE_MAX_BITS } from "@/lib/scans/look-alikes";
 import { ApiError, apiFetch } from "@/lib/swr/fetcher";
 import { useScans, useSimilarStamps, type ScansAnswer } from "@/lib/swr/use-scans";
 import { CoverageReview } from "./coverage-review";
@@ -88,7 +87,7 @@ export function ScansPanel({ code, canWrite, unitSystem, stampCoverage, hasOutli
 
       <section className="border-t border-stone-100 pt-4" data-testid="similar-stamps">
         <h3 className="text-sm font-semibold text-stone-900">{t("similar.title")}</h3>
-        <p className="mt-0.5 text-xs text-stone-500">{t("similar.intro", { max: LOOK_ALIKE_MAX_BITS })}</p>
+        <p className="mt-0.5 text-xs text-stone-500">{t("similar.intro")}</p>
         {scans.length === 0 ? (
           <p className="mt-2 text-sm text-stone-500">{t("similar.noScans")}</p>
         ) : similar.data && similar.data.stamps.length === 0 ? (
@@ -103,7 +102,8 @@ export function ScansPanel({ code, canWrite, unitSystem, stampCoverage, hasOutli
                   <span className="mt-1 block font-mono text-ink-700 group-hover:underline">{s.code}</span>
                   <span className="block truncate text-stone-600">{s.name}</span>
                   <span className="block text-stone-500">
-                    {t("similar.distance", { distance: s.distance })}
+                    {t("similar.distance", { alike: 1 - s.distance })}
+                    {s.close ? null : <span className="ml-1">· {t("similar.loose")}</span>}
                     {s.orientation === "mirrored" ? (
                       <span className="ml-1 rounded bg-soga-50 px-1 text-soga-700" title={t("similar.mirrorHint")}>
                         {t("similar.mirror")}

@@ -7,6 +7,7 @@ import { cn } from "@/components/ui/cn";
 
 const tabs = [
   { href: "/stamps", key: "stamps.tabs.stamps", exact: true },
+  { href: "/stamps/pictures", key: "motifs.shelfPictures.tab" },
   { href: "/stamps/out", key: "stamps.tabs.out" },
   { href: "/stamps/locations", key: "stamps.tabs.locations" },
   { href: "/stamps/stock-takes", key: "stamps.tabs.stockTakes" },

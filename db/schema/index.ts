@@ -6,3 +6,4 @@ export * from "./settings";
 export * from "./wax";
 export * from "./plans";
 export * from "./requests";
+export * from "./motifs";

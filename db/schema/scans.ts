@@ -1,9 +1,11 @@
 import { sql } from "drizzle-orm";
-import { check, doublePrecision, index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { check, customType, doublePrecision, index, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { stamps } from "./stamps";
 import { users } from "./users";
 
 // Stamp scans: pictures of a stamp's face and of its wax print, kept in the object store.
+
+const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
 
 export const scanKindEnum = pgEnum("scan_kind", ["face", "print"]);
 export const waxPolarityEnum = pgEnum("wax_polarity", ["darkIsWax", "lightIsWax"]);
@@ -41,6 +43,8 @@ export const stampScans = pgTable(
     coverageRatio: doublePrecision("coverage_ratio").notNull(),
     phash: text("phash").notNull(),
     phashMirrored: text("phash_mirrored").notNull(),
+    /** The motif's signature for search by picture (lib/scans/similar.ts encodeSignature); null for scans stored before it. */
+    signature: bytea("signature"),
     uploadedBy: uuid("uploaded_by").references(() => users.id, { onDelete: "set null" }),
     uploadedByName: text("uploaded_by_name").notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),

@@ -19,10 +19,15 @@ export function isJsonMediaType(mediaType: string): boolean {
  * no further than one that declares its size honestly (which is refused before reading at all).
  */
 export async function readBodyText(request: Request, maxBytes: number): Promise<string> {
+  return (await readBodyBytes(request, maxBytes)).toString("utf8");
+}
+
+/** Reads a request body as bytes, at most `maxBytes`, counted while reading (as readBodyText). */
+export async function readBodyBytes(request: Request, maxBytes: number): Promise<Buffer> {
   const tooLarge = () => new AppError("payloadTooLarge", { maxBytes });
   const declared = request.headers.get("content-length");
   if (declared !== null && Number(declared) > maxBytes) throw tooLarge();
-  if (!request.body) return "";
+  if (!request.body) return Buffer.alloc(0);
   const reader = request.body.getReader();
   const chunks: Uint8Array[] = [];
   let total = 0;
@@ -36,5 +41,5 @@ export async function readBodyText(request: Request, maxBytes: number): Promise<
     }
     chunks.push(value);
   }
-  return Buffer.concat(chunks).toString("utf8");
+  return Buffer.concat(chunks);
 }

@@ -55,7 +55,7 @@ function operation(endpoint: Endpoint, path: string, t: Translator) {
     ...(endpoint.body
       ? { requestBody: { required: !endpoint.bodyOptional, content: { "application/json": { schema: jsonSchema(endpoint.body) } } } }
       : endpoint.accepts
-        ? { requestBody: { required: true, content: { [endpoint.accepts]: { schema: { type: "string" } } } } }
+        ? { requestBody: { required: true, content: Object.fromEntries(acceptedTypes(endpoint.accepts).map((type) => [type, { schema: { type: "string", ...(type === "text/csv" ? {} : { format: "binary" }) } }])) } }
         : {}),
     responses: { [status]: success, ...Object.fromEntries(errorCodesFor(endpoint).map((code) => [code, errorRef])) },
   };
@@ -109,3 +109,8 @@ export function openApiDocument(modules: RouteModule[], t: Translator, serverUrl
 }
 
 export type OpenApiDocument = ReturnType<typeof openApiDocument>;
+
+/** The media types a non-JSON body may have: a picture is PNG, JPEG or WebP. */
+function acceptedTypes(accepts: NonNullable<Endpoint["accepts"]>): string[] {
+  return accepts === "image/*" ? ["image/png", "image/jpeg", "image/webp"] : [accepts];
+}

@@ -30,7 +30,7 @@ export interface Endpoint {
   /** Turns a refused body into the route's own refusal (the scan routes answer a hidden character in a file name as badFileName). */
   bodyRefusal?: (error: ValidationFailed) => Error | undefined;
   /** A body that is not JSON, read by the handler itself (documented only). */
-  accepts?: "text/csv";
+  accepts?: "text/csv" | "image/*";
   /** The success answer, for the reference: 200 JSON unless said. */
   answers?: { status?: 200 | 201 | 204; type?: "application/json" | "text/csv" | "image/webp" | "application/octet-stream" };
 }

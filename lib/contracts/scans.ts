@@ -39,9 +39,26 @@ export interface SimilarStampDto {
   code: string;
   name: string;
   scanId: string;
+  /** 0 the same … 1 the opposite (lib/scans/similar.ts). */
   distance: number;
+  close: boolean;
   /** "mirrored": this stamp's motif mirrored looks like the other one (a back-face twin). */
   orientation: "same" | "mirrored";
+  urls: { thumb: string };
+}
+
+/** One answer of search by picture: a stamp whose scan looks like the picture. */
+export interface SimilarMatchDto {
+  stampCode: string;
+  stampName: string;
+  motifId: string | null;
+  scanId: string;
+  /** 0 the same … 1 the opposite. */
+  distance: number;
+  /** The match needed a mirror (beyond the one between a face photo and a print): a back-face twin. */
+  mirrored: boolean;
+  /** Within the distance that counts as close (CLOSE_DISTANCE). */
+  close: boolean;
   urls: { thumb: string };
 }
 
@@ -67,6 +84,8 @@ export const scanUrls = {
   overlay: (code: string, id: string, query = "") => `${scansBase(code)}/${id}/overlay${query ? `?${query}` : ""}`,
   coverage: (code: string, id: string, query = "") => `${scansBase(code)}/${id}/coverage${query ? `?${query}` : ""}`,
   similar: (code: string) => `/api/v1/stamps/${encodeURIComponent(code)}/similar`,
+  /** POST a picture: search by picture (`?kind=print|face`). */
+  byPicture: (kind?: "print" | "face") => `/api/v1/similar${kind ? `?kind=${kind}` : ""}`,
 };
 
 /** What GET …/scans answers: the scans, newest first, and this server's upload limits. */

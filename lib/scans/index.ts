@@ -38,3 +38,19 @@ export {
 export { LOOK_ALIKE_MAX_BITS, MIRROR_TWIN_MARGIN_BITS } from "./look-alikes";
 export { createScanLimiter, scanLimiter, type ScanLimiter } from "./limiter";
 export { analysisMmPerPx, footprintRect } from "./footprint";
+export { motifSignature, type MotifSignature } from "./signature";
+export {
+  findSimilar,
+  similarQuery,
+  queryOfSignature,
+  bestPerKey,
+  encodeSignature,
+  decodeSignature,
+  kindOfSignature,
+  SIMILAR_MAX_DISTANCE,
+  CLOSE_DISTANCE,
+  type PictureKind,
+  type StoredSignature,
+  type SimilarMatch,
+  type SimilarQuery,
+} from "./similar";

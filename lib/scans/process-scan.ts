@@ -7,6 +7,7 @@ import { ScanRejected } from "./errors";
 import { checkFileName } from "./file-name";
 import type { GreyRaster } from "./otsu";
 import { motifHashes, type MotifHashes } from "./phash";
+import { motifSignature, type MotifSignature } from "./signature";
 import { MM_PER_INCH, physicalSizeMm, type SizeMm } from "./physical-size";
 
 export interface ScanLimits {
@@ -25,7 +26,7 @@ export interface ScanLimits {
 export const defaultScanLimits: Required<ScanLimits> = { maxBytes: 200 * 1024 * 1024, maxPixels: 80_000_000, minSidePx: 64 };
 
 /** Steps reported to `onStage`, in the order they finish. */
-export type ScanStage = "check" | "decode" | "sha256" | "original" | "thumbnails" | "phash" | "coverage";
+export type ScanStage = "check" | "decode" | "sha256" | "original" | "thumbnails" | "phash" | "coverage" | "signature";
 
 export interface ProcessScanOptions extends ScanLimits {
   /** DPI entered by the keeper; wins over the file's own density. */
@@ -86,6 +87,8 @@ export interface ProcessedScan {
   analysis: AnalysisRaster;
   coverage: CoverageResult;
   hashes: MotifHashes;
+  /** The motif's signature for search by picture. */
+  signature: MotifSignature;
 }
 
 const DEFAULT_THUMBNAILS = [256, 1024] as const;
@@ -262,6 +265,7 @@ export async function processScan(bytes: Buffer, options: ProcessScanOptions): P
   };
   const hashes = await timed("phash", onStage, () => motifHashes(analysis));
   const coverage = await timed("coverage", onStage, () => measureCoverage(analysis, { polarity }));
+  const signature = await timed("signature", onStage, () => motifSignature(analysis));
   const thumbnails = await thumbnailsDone;
 
   return {
@@ -282,6 +286,7 @@ export async function processScan(bytes: Buffer, options: ProcessScanOptions): P
     analysis,
     coverage,
     hashes,
+    signature,
   };
 }
 

@@ -58,6 +58,9 @@ export const saveCoverageSchema = z
 export const scanImageSizes = ["thumb", "large"] as const;
 export const scanImageQuerySchema = z.object({ size: z.enum(scanImageSizes, "validation.invalidOption").default("thumb") });
 
+/** Query of search by picture: what the picture shows (a face photo is the mirror image of its print). */
+export const similarQuerySchema = z.object({ kind: z.enum(scanKinds, "validation.invalidOption").optional() }).strict();
+
 export type PresignScanInput = z.infer<typeof presignScanSchema>;
 export type CompleteScanInput = z.infer<typeof completeScanSchema>;
 export type CoveragePreviewInput = z.infer<typeof coveragePreviewSchema>;

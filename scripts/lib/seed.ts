@@ -1,5 +1,6 @@
 import type { Database } from "@/db";
 import { seedPlans } from "../seed/plans";
+import { seedMotifs } from "../seed/motifs";
 import { seedScans } from "../seed/scans";
 import { seedStamps } from "../seed/stamps";
 import { demoUsers, seedUsers } from "../seed/users";
@@ -12,6 +13,7 @@ export async function seedDemo(db: Database) {
   await seedScans(db, objectStoreFromEnv());
   await seedWax(db);
   await seedPlans(db);
+  await seedMotifs(db);
 }
 
 export function printSignIns(appUrl = process.env.APP_URL ?? "http://localhost:3000") {

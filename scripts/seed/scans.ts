@@ -3,7 +3,7 @@ import type { Database } from "@/db";
 import { stampEvents, stampScans, stamps, users } from "@/db/schema";
 import { newObjectKey, type ObjectStore } from "@/lib/object-store";
 import { defaultScanLimits, encodeGreyRaster, processScan } from "@/lib/scans";
-import { motifSvg, renderScan, type ScanStyle } from "./scan-art";
+import { mirrorSvg, motifSvg, renderScan, type ScanStyle } from "./scan-art";
 import { demoUsers } from "./users";
 import { scanKeys, scanRow } from "@/lib/data/scans/rows";
 
@@ -16,11 +16,6 @@ function seedOf(code: string): number {
   let h = 2166136261;
   for (const c of code) h = Math.imul(h ^ c.charCodeAt(0), 16777619) >>> 0;
   return h;
-}
-
-/** The SVG mirrored left–right inside its own viewBox (width in mm). */
-function mirrorSvg(svg: string, widthMm: number): string {
-  return svg.replace(/(<svg\b[^>]*>)/, `$1<g transform="translate(${widthMm.toFixed(2)} 0) scale(-1 1)">`).replace(/<\/svg>\s*$/, "</g></svg>");
 }
 
 export interface SeedScansOptions {

@@ -29,7 +29,7 @@ interface CallOptions {
   session?: Session;
   token?: string;
   body?: unknown;
-  rawBody?: string;
+  rawBody?: string | Uint8Array;
   headers?: Record<string, string>;
 }
 
@@ -39,12 +39,12 @@ export async function api(method: string, path: string, options: CallOptions = {
   const headers: Record<string, string> = { accept: "application/json", ...options.headers };
   if (options.session) headers.cookie = options.session.cookie;
   if (options.token) headers.authorization = `Bearer ${options.token}`;
-  let body: string | undefined;
+  let body: BodyInit | undefined;
   if (options.body !== undefined) {
     body = JSON.stringify(options.body);
     headers["content-type"] ??= "application/json";
   } else if (options.rawBody !== undefined) {
-    body = options.rawBody;
+    body = typeof options.rawBody === "string" ? options.rawBody : new Uint8Array(options.rawBody);
   }
   const response = await fetch(`${appUrl}${path}`, { method, headers, body, redirect: "manual" });
   const text = await response.text();

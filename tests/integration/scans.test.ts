@@ -7,7 +7,7 @@ import { stampEvents, stampScans, stamps, type Stamp } from "@/db/schema";
 import { objectStore } from "@/lib/s3";
 import { motifSvg, renderScan } from "@/scripts/seed/scan-art";
 import { scanRejectedStatus } from "@/lib/errors";
-import { LOOK_ALIKE_MAX_BITS } from "@/lib/scans";
+import { CLOSE_DISTANCE } from "@/lib/scans";
 import { createUser, db } from "../helpers/db";
 import { testEnv } from "../helpers/env";
 import { hostileFiles, hostileLimits } from "../helpers/hostile-files";
@@ -257,7 +257,7 @@ describe("similar stamps", () => {
     expect(res.status).toBe(200);
     const match = res.body.stamps.find((s: { code: string }) => s.code === twin.code);
     expect(match).toMatchObject({ orientation: "mirrored" });
-    expect(match.distance).toBeLessThanOrEqual(4);
+    expect(match.distance).toBeLessThanOrEqual(CLOSE_DISTANCE);
   });
 });
 
@@ -287,7 +287,7 @@ describe("look-alikes of demo motifs", () => {
     expect((await similarCodes(lotus)).map((s) => s.code)).not.toContain(vine3.code);
     const again = (await similarCodes(vine3)).find((s) => s.code === vine3Again.code);
     expect(again).toMatchObject({ orientation: "same" });
-    expect(again!.distance).toBeLessThanOrEqual(LOOK_ALIKE_MAX_BITS);
+    expect(again!.distance).toBeLessThanOrEqual(CLOSE_DISTANCE);
   });
 });
 

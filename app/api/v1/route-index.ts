@@ -27,6 +27,12 @@ import * as stampRequestsIdDecline from "./stamp-requests/[id]/decline/route";
 import * as stamps from "./stamps/route";
 import * as stampsExport from "./stamps/export/route";
 import * as stampsImport from "./stamps/import/route";
+import * as similar from "./similar/route";
+import * as motifsRoute from "./motifs/route";
+import * as motifsId from "./motifs/[id]/route";
+import * as motifsIdCopy from "./motifs/[id]/copy/route";
+import * as collectionsRoute from "./collections/route";
+import * as collectionsId from "./collections/[id]/route";
 import * as stampsCode from "./stamps/[code]/route";
 import * as stampsCodeCheckout from "./stamps/[code]/checkout/route";
 import * as stampsCodeCondition from "./stamps/[code]/condition/route";
@@ -99,6 +105,12 @@ export const routeModules: RouteModule[] = [
   { path: "/api/v1/stamps", handlers: stamps },
   { path: "/api/v1/stamps/export", handlers: stampsExport },
   { path: "/api/v1/stamps/import", handlers: stampsImport },
+  { path: "/api/v1/similar", handlers: similar },
+  { path: "/api/v1/motifs", handlers: motifsRoute },
+  { path: "/api/v1/motifs/{id}", handlers: motifsId },
+  { path: "/api/v1/motifs/{id}/copy", handlers: motifsIdCopy },
+  { path: "/api/v1/collections", handlers: collectionsRoute },
+  { path: "/api/v1/collections/{id}", handlers: collectionsId },
   { path: "/api/v1/stamps/{code}", handlers: stampsCode },
   { path: "/api/v1/stamps/{code}/checkout", handlers: stampsCodeCheckout },
   { path: "/api/v1/stamps/{code}/condition", handlers: stampsCodeCondition },

@@ -1,12 +1,12 @@
 import "server-only";
-import { desc, eq } from "drizzle-orm";
+import { desc, eq, inArray } from "drizzle-orm";
 import { db } from "@/db";
-import { stampScans } from "@/db/schema";
+import { stampScans, stamps } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
 import { downloadFileName, scanTypeOfContent } from "@/lib/scans";
 import { getObjectStream } from "@/lib/s3";
-import { type ScanDto } from "@/lib/contracts/scans";
+import { scanUrls, type ScanDto } from "@/lib/contracts/scans";
 import { findScan, findStamp, toDto } from "./shared";
 
 // Reading scans: the list, one scan, and its pictures streamed from the object store.
@@ -49,4 +49,17 @@ export async function scanOriginal(actor: Actor, code: string, id: string): Prom
   if (!stream) throw new AppError("notFound");
   const type = scanTypeOfContent(scan.contentType);
   return { ...stream, contentType: scan.contentType, fileName: downloadFileName(scan.fileName, type, `${stamp.code}-${scan.kind}`) };
+}
+
+/** The newest scan's thumbnail of each stamp named, by code (the shelf's picture view). */
+export async function newestThumbs(actor: Actor, codes: string[]): Promise<Record<string, string>> {
+  assertCan(actor, "data:read");
+  if (codes.length === 0) return {};
+  const rows = await db
+    .selectDistinctOn([stampScans.stampId], { code: stamps.code, id: stampScans.id })
+    .from(stampScans)
+    .innerJoin(stamps, eq(stamps.id, stampScans.stampId))
+    .where(inArray(stamps.code, codes))
+    .orderBy(stampScans.stampId, desc(stampScans.createdAt));
+  return Object.fromEntries(rows.map((r) => [r.code, scanUrls.image(r.code, r.id, "thumb")]));
 }

@@ -1,5 +1,6 @@
 import type { NewStampScan } from "@/db/schema";
 import type { ProcessedScan } from "@/lib/scans";
+import { encodeSignature } from "@/lib/scans/similar";
 
 /** The object keys one stored scan occupies. */
 export interface ScanKeys {
@@ -50,6 +51,7 @@ export function scanRow(p: {
     coverageRatio: p.coverage.ratio,
     phash: processed.hashes.hash,
     phashMirrored: processed.hashes.mirroredHash,
+    signature: encodeSignature(processed.signature),
     uploadedBy: p.uploader.id,
     uploadedByName: p.uploader.name,
   };

@@ -105,7 +105,7 @@ describe("processScan on sound files", () => {
   it("reports each step's time", async () => {
     const stages: ScanStage[] = [];
     await processScan(png600, { ...limits, onStage: (stage, ms) => (expect(ms).toBeGreaterThanOrEqual(0), stages.push(stage)) });
-    expect(new Set(stages)).toEqual(new Set(["check", "decode", "sha256", "original", "thumbnails", "phash", "coverage"]));
+    expect(new Set(stages)).toEqual(new Set(["check", "decode", "sha256", "original", "thumbnails", "phash", "coverage", "signature"]));
   });
 });
 

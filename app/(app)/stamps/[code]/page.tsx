@@ -80,7 +80,18 @@ export default async function StampPage({ params, searchParams }: Props) {
         <span className="text-stone-500">{t("stamps.record.noTwin")}</span>
       ),
     ],
-    [t("stamps.fields.motif"), <span key="motif" className="text-stone-500">{t("stamps.record.noMotif")}</span>],
+    [
+      t("stamps.fields.motif"),
+      stamp.motifId ? (
+        <Link key="motif" href={`/motifs/${stamp.motifId}`} className="text-ink-700 hover:underline">
+          {t("stamps.record.openMotif")}
+        </Link>
+      ) : (
+        <span key="motif" className="text-stone-500">
+          {t("stamps.record.noMotif")}
+        </span>
+      ),
+    ],
     [t("stamps.fields.maker"), stamp.maker ?? none],
     [t("stamps.fields.madeOn"), stamp.madeOn ? day(stamp.madeOn) : none],
     [
