@@ -14,6 +14,8 @@ export default defineConfig({
           name: "unit",
           include: ["tests/unit/**/*.test.ts"],
           environment: "node",
+          // Image and polygon tests take a few seconds alone; a busy 2-core machine must not fail them on time.
+          testTimeout: 20_000,
           // next-auth imports "next/server" without an extension, which Node's own resolver refuses.
           server: { deps: { inline: ["next-auth"] } },
         },
