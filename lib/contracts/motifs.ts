@@ -71,6 +71,7 @@ export interface MotifPlanDto {
   name: string;
   arrangement: string;
   clothName: string | null;
+  clothWidthMm: number;
   updatedAt: string;
 }
 

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
-import { checkouts, motifCollectionMembers, motifCollections, motifColours, motifColourways, motifEvents, motifs, motifStamps, stampScans, stamps, type Motif } from "@/db/schema";
+import { checkouts, motifCollectionMembers, motifCollections, motifColours, motifColourways, motifEvents, motifs, motifStamps, plans, stampScans, stamps, type Motif } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
 import {
@@ -26,13 +26,17 @@ import type { CollectionInput, CreateMotifInput, MotifListQuery, UpdateCollectio
 type Db = Transaction | typeof db;
 
 /**
- * Plans that used the motif, newest first. Cloth plans are their own area and carry a nullable motif_id; until
- * that table exists no plan can point at a motif, so the answer is empty.
+ * Plans that used the motif, newest first (plans carry a nullable motif_id; the planner sets it when a plan is
+ * started from a motif). The cloth is named by its width, since a plan keeps the width rather than a preset's name.
  */
 export async function plansOfMotif(actor: Actor, motifId: string): Promise<MotifPlanDto[]> {
   assertCan(actor, "data:read");
-  void motifId;
-  return [];
+  const rows = await db
+    .select({ id: plans.id, name: plans.name, arrangement: plans.arrangement, clothWidthMm: plans.clothWidthMm, updatedAt: plans.updatedAt })
+    .from(plans)
+    .where(eq(plans.motifId, motifId))
+    .orderBy(desc(plans.updatedAt));
+  return rows.map((r) => ({ id: r.id, name: r.name, arrangement: r.arrangement, clothName: null, clothWidthMm: r.clothWidthMm, updatedAt: r.updatedAt.toISOString() }));
 }
 
 async function stampSets(tx: Db, motifIds: string[]): Promise<Map<string, MotifStampDto[]>> {
@@ -139,8 +143,10 @@ export async function listMotifs(actor: Actor, query: MotifListQuery): Promise<M
     .where(where.length ? and(...where) : undefined);
   const ids = rows.map((r) => r.id);
   const [sets, cols, counts] = await Promise.all([stampSets(db, ids), collectionsOf(db, ids), colourwayCounts(db, ids)]);
-  // A filter on plans (the arrangement used before) has nothing to match until plans carry their motif.
-  const used = query.arrangement ? new Set<string>() : null;
+  // The arrangement used before: motifs with a plan in that arrangement.
+  const used = query.arrangement
+    ? new Set((await db.selectDistinct({ motifId: plans.motifId }).from(plans).where(eq(plans.arrangement, query.arrangement as (typeof plans.arrangement.enumValues)[number]))).map((r) => r.motifId))
+    : null;
   let list = rows.map((m) => summaryOf(m, sets.get(m.id) ?? [], cols.get(m.id) ?? [], counts.get(m.id) ?? 0));
   if (used) list = list.filter((m) => used.has(m.id));
   if (query.availability?.length) list = list.filter((m) => m.mainStamp && query.availability!.includes(m.mainStamp.availability));

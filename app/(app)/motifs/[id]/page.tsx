@@ -7,6 +7,8 @@ import { MotifActions } from "@/components/motifs/motif-actions";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { startPlanUrl, type MotifEventDto } from "@/lib/contracts/motifs";
+import { measures } from "@/lib/i18n/measures";
+import type { Arrangement } from "@/lib/layout";
 import { getMotif, motifHistory, plansOfMotif, similarMotifs } from "@/lib/data/motifs";
 import { calendarDay } from "@/lib/i18n/formats";
 import { can } from "@/lib/permissions";
@@ -138,8 +140,7 @@ export default async function MotifPage({ params, searchParams }: { params: Prom
                     <Link href={`/plans/${p.id}`} className="text-ink-700 hover:underline">
                       {p.name}
                     </Link>{" "}
-                    · {p.arrangement}
-                    {p.clothName ? ` · ${p.clothName}` : ""}
+                    · {t(`plans.arrangements.${p.arrangement as Arrangement}`)} · {measures(format, actor.unitSystem).length(p.clothWidthMm)}
                   </li>
                 ))}
               </ul>
