@@ -41,6 +41,8 @@ export default defineConfig({
           fileParallelism: false,
           testTimeout: 90_000,
           hookTimeout: 120_000,
+          // A page on a busy 2-core machine may take seconds to answer a debounced search: poll up to 10 s, not 1.
+          expect: { poll: { timeout: 10_000 } },
         },
       },
     ],

@@ -114,7 +114,7 @@ describe("the wax master's season", () => {
     await use.getByLabel("Passes").fill("2");
     await use.getByLabel("Wax used (g)").fill(String(grams));
     await use.getByRole("button", { name: "Record the use" }).click();
-    await page.getByText(`Recorded: ${grams} g of ${dryName}.`).waitFor();
+    await page.getByText(`Recorded: ${grams.toLocaleString("en")} g of ${dryName}.`).waitFor();
     await expect.poll(async () => Number(await chart.getAttribute("data-points"))).toBe(pointsBefore + 1);
     expect(Number(await chart.getAttribute("data-rate"))).toBeGreaterThan(rateBefore);
     expect(await page.getByTestId("calibrated-rate").textContent()).not.toBe(rateText);
