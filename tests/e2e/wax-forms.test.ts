@@ -206,7 +206,7 @@ describe("estimates and wax uses", () => {
     await checkAccessibility(page, "with the wax use form showing its errors and the calibration chart drawn");
     await form.getByLabel("Metres waxed").fill("12");
     await form.getByRole("button", { name: "Record the use" }).click();
-    await page.getByText(`Recorded: 1200 g of ${dryName}.`).waitFor();
+    await page.getByText(`Recorded: 1,200 g of ${dryName}.`).waitFor();
   });
 });
 
