@@ -44,6 +44,7 @@ export const errorStatus = {
   recipeArchived: 409,
   waxUseWithdrawn: 409,
   stampInPlans: 409,
+  planInWaxRecords: 409,
   requestAnswered: 409,
   requestStampsUnavailable: 409,
   requestStampsReserved: 409,

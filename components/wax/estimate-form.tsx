@@ -32,6 +32,7 @@ export function EstimateForm({
   action,
   recipes,
   plans,
+  initialPlanId = "",
   cloths,
   defaults,
   canWrite,
@@ -40,6 +41,8 @@ export function EstimateForm({
   action: Action;
   recipes: EstimateRecipeChoice[];
   plans: { id: string; name: string }[];
+  /** The plan chosen when the page opens (`?plan=<id>`). */
+  initialPlanId?: string;
   cloths: string[];
   defaults: WaxDefaultsDto;
   canWrite: boolean;
@@ -54,7 +57,17 @@ export function EstimateForm({
   const e = state.fieldErrors ?? {};
   const [runKind, setRunKind] = useState<(typeof runKinds)[number]>(() => (runKinds as readonly string[]).includes(v("runKind", "")) ? (v("runKind", "metres") as (typeof runKinds)[number]) : "metres");
   const [recipeId, setRecipeId] = useState(v("recipeId", recipes[0]?.id ?? ""));
-  const [planId, setPlanId] = useState(v("planId", ""));
+  const [planId, setPlanId] = useState(v("planId", initialPlanId));
+  // React resets the form after each answer, and a controlled select would keep its state while showing the reset
+  // choice: on each answer, take the typed choices back and draw the selects afresh with them as their defaults.
+  const [answered, setAnswered] = useState(state);
+  const [round, setRound] = useState(0);
+  if (answered !== state) {
+    setAnswered(state);
+    setRound((r) => r + 1);
+    setPlanId(v("planId", planId));
+    setRecipeId(v("recipeId", recipeId));
+  }
   const recipe = recipes.find((r) => r.id === recipeId);
   const result = state.status === "success" && state.data?.result ? (JSON.parse(state.data.result) as EstimateResultDto) : null;
   const n = (value: number, digits = 2) => format.number(value, { maximumFractionDigits: digits });
@@ -67,7 +80,7 @@ export function EstimateForm({
         <div className="grid gap-4 md:grid-cols-2">
           <Field id="estimate-recipe" label={t("recipe")} errors={e.recipeId}>
             {(aria) => (
-              <select {...aria} name="recipeId" value={recipeId} onChange={(ev) => setRecipeId(ev.target.value)}>
+              <select {...aria} key={round} name="recipeId" defaultValue={recipeId} onChange={(ev) => setRecipeId(ev.target.value)}>
                 {recipes.map((r) => (
                   <option key={r.id} value={r.id}>
                     {r.name}
@@ -78,7 +91,7 @@ export function EstimateForm({
           </Field>
           <Field id="estimate-plan" label={t("plan")} hint={plans.length ? t("planHint") : t("noPlans")} errors={e.planId}>
             {(aria) => (
-              <select {...aria} name="planId" value={planId} onChange={(ev) => setPlanId(ev.target.value)} disabled={plans.length === 0}>
+              <select {...aria} key={round} name="planId" defaultValue={planId} onChange={(ev) => setPlanId(ev.target.value)} disabled={plans.length === 0}>
                 <option value="">{t("noPlan")}</option>
                 {plans.map((p) => (
                   <option key={p.id} value={p.id}>

@@ -25,6 +25,15 @@ export function WaxUseForm({ action, recipes, plans, cloths, today, unitSystem }
   const e = state.fieldErrors ?? {};
   const [weighing, setWeighing] = useState(v("weighing", "grams") === "pot" ? "pot" : "grams");
   const [planId, setPlanId] = useState(v("planId", ""));
+  // React resets the form after each answer, and a controlled select would keep its state while showing the reset
+  // choice: on each answer, take the answer's choice and draw the select afresh with it as its default.
+  const [answered, setAnswered] = useState(state);
+  const [round, setRound] = useState(0);
+  if (answered !== state) {
+    setAnswered(state);
+    setRound((r) => r + 1);
+    setPlanId(v("planId", ""));
+  }
   const unit = smallMassUnit(unitSystem);
   return (
     <form action={formAction} className="space-y-5" aria-label={t("formLabel")} noValidate>
@@ -51,7 +60,7 @@ export function WaxUseForm({ action, recipes, plans, cloths, today, unitSystem }
         </Field>
         <Field id="use-plan" label={t("plan")} hint={plans.length ? t("planHint") : t("noPlans")} errors={e.planId}>
           {(aria) => (
-            <select {...aria} name="planId" value={planId} onChange={(ev) => setPlanId(ev.target.value)} disabled={plans.length === 0}>
+            <select {...aria} key={round} name="planId" defaultValue={planId} onChange={(ev) => setPlanId(ev.target.value)} disabled={plans.length === 0}>
               <option value="">{t("noPlan")}</option>
               {plans.map((p) => (
                 <option key={p.id} value={p.id}>

@@ -1,5 +1,6 @@
 import { sql } from "drizzle-orm";
 import { type AnyPgColumn, boolean, check, date, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { plans } from "./plans";
 import { stamps } from "./stamps";
 import { users } from "./users";
 
@@ -136,14 +137,14 @@ export const waxRecipeChanges = pgTable(
   (t) => [index("wax_recipe_changes_recipe_idx").on(t.recipeId, t.at)],
 );
 
-/** An estimate of the wax for a run, as computed when it was saved. Saved plans link by plan_id (no foreign key yet). */
+/** An estimate of the wax for a run, as computed when it was saved, for a saved plan or a typed area. */
 export const waxEstimates = pgTable(
   "wax_estimates",
   {
     id: uuid("id").primaryKey().defaultRandom(),
     name: text("name").notNull(),
-    /** The saved plan it was made for; no foreign key until the plans table exists. */
-    planId: uuid("plan_id"),
+    /** The saved plan it was made for; deleting a plan that estimates point at is refused. */
+    planId: uuid("plan_id").references(() => plans.id, { onDelete: "restrict" }),
     recipeId: uuid("recipe_id")
       .notNull()
       .references(() => waxRecipes.id, { onDelete: "restrict" }),
@@ -180,8 +181,8 @@ export const waxUses = pgTable(
   {
     id: uuid("id").primaryKey().defaultRandom(),
     usedOn: date("used_on").notNull(),
-    /** The saved plan waxed; no foreign key until the plans table exists. */
-    planId: uuid("plan_id"),
+    /** The saved plan waxed; deleting a plan that wax uses point at is refused. */
+    planId: uuid("plan_id").references(() => plans.id, { onDelete: "restrict" }),
     /** A production run's waxing stage; no foreign key until runs exist. */
     runStageId: uuid("run_stage_id"),
     recipeId: uuid("recipe_id")

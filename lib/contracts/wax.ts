@@ -273,6 +273,8 @@ export const waxPages = {
   materials: "/wax/materials",
   material: (id: string) => `/wax/materials/${enc(id)}`,
   estimates: "/wax/estimates",
+  /** The estimate form with a saved plan chosen: `/wax/estimates?plan=<id>`. */
+  estimatesForPlan: (planId: string) => withQuery("/wax/estimates", new URLSearchParams({ plan: planId })),
   uses: "/wax/uses",
   purchase: "/wax/purchase",
 };

@@ -5,6 +5,7 @@ import { createUser, reloadUser } from "../helpers/db";
 import { launchBrowser, signInThroughPage } from "../helpers/browser";
 import { testEnv } from "../helpers/env";
 import { expectMessageBeside } from "../helpers/forms";
+import { api, signIn } from "../helpers/http";
 import { englishLeftOn, textsOn } from "../helpers/languages";
 import { latestMailTo } from "../helpers/mail";
 import { createStampRow, reloadStamp, uniquePrefix } from "../helpers/stamps";
@@ -160,6 +161,52 @@ describe("someone who works in English", () => {
     await expectMessageBeside(out.getByLabel("Workstation"), /^Required\.$/);
     expect(await textsOn(page, "id")).toEqual([]);
     await colleague.context().close();
+    await page.context().close();
+  });
+});
+
+describe("a planner who works in Bahasa Indonesia", () => {
+  it("prints a plan's stamping sheet in Indonesian, with Indonesian number writing and no English left", async () => {
+    const { appUrl } = testEnv();
+    const code = `${prefix}-S`;
+    await createStampRow({ code, name: `Kawung ${prefix}`, widthMm: 200, heightMm: 300 });
+    const planner = await createUser("planner", undefined, { locale: "id", localeSource: "person" });
+    const session = (await signIn(planner.email, planner.password))!;
+    // 1150 mm mori, 25 mm margins, a 200 × 300 mm stamp straight over 60 m. Worked by hand: ⌊1100 / 200⌋ = 5 across,
+    // 1000 / 300 = 3.33 rows a metre → 16.67 impressions a metre; 60 000 / 300 = 200 rows → 1000 for the run;
+    // at the default 26 impressions an hour, 1000 / 26 = 38.5 h.
+    const saved = await api("POST", "/api/v1/plans", {
+      session,
+      body: { name: `${prefix} lembar`, layout: { cloth: { widthMm: 1150, lengthMm: 60_000, margins: { leftMm: 25, rightMm: 25 } }, stamp: { code }, gap: { xMm: 0, yMm: 0 }, arrangement: "straight" } },
+    });
+    expect(saved.status, JSON.stringify(saved.body)).toBe(201);
+    expect(saved.body.plan.summary.impressionsTotal).toBe(1000);
+
+    const page = await signedIn(planner);
+    await page.goto(`${appUrl}/plans/${saved.body.plan.id}/sheet`);
+    await page.getByTestId("stamping-sheet").waitFor();
+    expect(await lang(page)).toBe("id");
+    await page.emulateMedia({ media: "print" });
+    await expect.poll(() => page.title()).toBe(`${id("plans.sheet.title")} · Capgrid`);
+    expect(await page.getByRole("heading", { level: 1 }).textContent()).toBe(id("plans.sheet.heading", { name: `${prefix} lembar` }));
+    expect(await englishLeftOn(page)).toEqual([]);
+
+    const counts = (await page.getByTestId("sheet-counts").textContent()) ?? "";
+    expect(counts).toContain(id("plans.sheet.perRun"));
+    expect(counts).toContain("1.000"); // impressions for the run, a dot between thousands
+    expect(counts).toContain("16,67"); // impressions per metre, a decimal comma
+    expect(counts).toContain("38,5 jam"); // stamping time
+    expect(counts).not.toMatch(/1,000|16\.67|38\.5/);
+    const header = (await page.locator("header").filter({ hasText: id("plans.sheet.heading", { name: `${prefix} lembar` }) }).textContent()) ?? "";
+    expect(header).not.toMatch(/1,150/);
+    expect(await page.getByTestId("sheet-stamps").textContent()).toContain(id("plans.sheet.noLocation"));
+    // The same check finds the English sheet's texts, so it is no empty check.
+    const english = await signedIn(await createUser("planner"));
+    await english.goto(`${appUrl}/plans/${saved.body.plan.id}/sheet`);
+    await english.getByTestId("stamping-sheet").waitFor();
+    expect(await englishLeftOn(english)).toEqual(expect.arrayContaining([en("plans.sheet.perRun"), en("plans.sheet.countsTitle")]));
+    expect(await english.getByTestId("sheet-counts").textContent()).toContain("1,000");
+    await english.context().close();
     await page.context().close();
   });
 });

@@ -6,6 +6,7 @@ import { seedWax } from "@/scripts/seed/wax";
 import { launchBrowser, signInThroughPage } from "../helpers/browser";
 import { createUser, db } from "../helpers/db";
 import { testEnv } from "../helpers/env";
+import { api, signIn } from "../helpers/http";
 import { uniquePrefix } from "../helpers/stamps";
 
 // The wax master's main flow in the wax room, the safety cautions on every wax screen (SPEC 5.3), and what a
@@ -123,6 +124,42 @@ describe("the wax master's season", () => {
     const [beeswax] = await db().select().from(waxMaterials).where(eq(waxMaterials.code, "beeswax"));
     await go(`/wax/materials/${beeswax.id}`);
     await page.getByTestId("material-movements").getByText("Used in a waxing").first().waitFor();
+  });
+
+  it("estimates the wax for a saved plan from the plan's page", async () => {
+    // A planner saves the plan: 1150 mm mori, 25 mm margins, a 200 × 200 mm stamp with half its footprint waxed,
+    // straight, 30 m. Worked by hand: 25 impressions a metre × 0.04 m² × 0.5 = 0.5 m² of wax a metre.
+    const planner = await createUser("planner");
+    const session = (await signIn(planner.email, planner.password))!;
+    const saved = await api("POST", "/api/v1/plans", {
+      session,
+      body: { name: `${prefix} market run`, layout: { cloth: { widthMm: 1150, lengthMm: 30_000, margins: { leftMm: 25, rightMm: 25 } }, stamp: { widthMm: 200, heightMm: 200, coverage: 0.5 }, gap: { xMm: 0, yMm: 0 }, arrangement: "straight" } },
+    });
+    expect(saved.status, JSON.stringify(saved.body)).toBe(201);
+    const plan = saved.body.plan as { id: string; name: string };
+
+    await go(`/plans/${plan.id}`);
+    await page.getByRole("link", { name: "Estimate the wax" }).click();
+    await page.waitForURL((url) => url.pathname === "/wax/estimates" && url.searchParams.get("plan") === plan.id);
+    const estimate = page.getByRole("form", { name: "Estimate the wax" });
+    expect(await estimate.getByLabel("Saved plan").inputValue()).toBe(plan.id);
+    // The plan gives the area: the form asks for none.
+    expect(await estimate.getByLabel("Waxed area per metre (m²/m)").count()).toBe(0);
+    await estimate.getByLabel("Recipe").selectOption({ label: dryName });
+    await estimate.getByLabel("Passes").fill("1");
+    await estimate.getByLabel("Rate (g/m²)").fill("100");
+    await estimate.getByLabel("Losses (%)").fill("0");
+    await estimate.getByLabel("Recovery (%)").fill("0");
+    await estimate.getByRole("button", { name: "Estimate", exact: true }).click();
+    await page.getByTestId("estimate-result").waitFor();
+    // By hand: 0.5 m²/m × 1 pass × 100 g/m² = 50 g/m; over the plan's own 30 m, 1.5 kg.
+    expect(await page.getByTestId("grams-per-metre").textContent()).toBe("50 g per metre");
+    expect(await page.getByTestId("kg-gross").textContent()).toMatch(/^1\.5(00)? kg$/);
+    expect(await estimate.getByLabel("Saved plan").inputValue()).toBe(plan.id);
+    await estimate.getByLabel("Name to save it under").fill(`${prefix} wax for the market run`);
+    await estimate.getByRole("button", { name: "Save estimate" }).click();
+    await page.getByText(`Estimate “${prefix} wax for the market run” saved.`).waitFor();
+    await page.getByRole("table", { name: "Saved estimates" }).getByText(`${prefix} wax for the market run`).waitFor();
   });
 
   it("shows the cautions and who decides on every wax screen", async () => {

@@ -1,7 +1,7 @@
 import "server-only";
-import { eq, sql } from "drizzle-orm";
+import { asc, count, eq, sql } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
-import { planStamps, plans, type Plan } from "@/db/schema";
+import { planStamps, plans, waxEstimates, waxUses, type Plan } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
 import { pickLocale } from "@/lib/i18n/config";
@@ -167,6 +167,22 @@ export async function deletePlan(actor: Actor, id: string, version: number): Pro
   await db.transaction(async (tx) => {
     const row = await findPlan(tx, id, true);
     if (row.version !== version) throw new AppError("versionConflict");
+    await refuseIfInWaxRecords(tx, id);
     await tx.delete(plans).where(eq(plans.id, id));
   });
+}
+
+/**
+ * Refuses (409 planInWaxRecords, naming them) to delete a plan that saved wax estimates or recorded wax uses name:
+ * estimates can be deleted first, a waxing that happened stays on record with its plan. The foreign keys back this up.
+ */
+async function refuseIfInWaxRecords(tx: Transaction, planId: string) {
+  const [estimates, [{ uses }]] = await Promise.all([
+    tx.select({ id: waxEstimates.id, name: waxEstimates.name }).from(waxEstimates).where(eq(waxEstimates.planId, planId)).orderBy(asc(waxEstimates.name)),
+    tx.select({ uses: count() }).from(waxUses).where(eq(waxUses.planId, planId)),
+  ]);
+  if (estimates.length === 0 && uses === 0) return;
+  const names = estimates.slice(0, 5).map((e) => `“${e.name}”`);
+  if (estimates.length > 5) names.push("…");
+  throw new AppError("planInWaxRecords", { estimates: estimates.length, uses, names: names.join(", ") || "–" }, undefined, { estimates, uses });
 }

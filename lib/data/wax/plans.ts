@@ -1,9 +1,14 @@
 import "server-only";
-import type { Actor } from "@/lib/authz";
+import { asc, eq, sql } from "drizzle-orm";
+import { db } from "@/db";
+import { plans } from "@/db/schema";
+import { assertCan, type Actor } from "@/lib/authz";
+import { AppError } from "@/lib/errors";
+import { getPlan } from "../plans";
 
 // The wax room's one link to saved plans. Estimates and wax uses store a plan's id (wax_estimates.plan_id,
-// wax_uses.plan_id: uuid columns without a foreign key until the plans table exists) and read what they need of
-// the plan through planForWax alone, so wiring the plans area in is this function's body and nothing else.
+// wax_uses.plan_id, foreign keys that refuse deleting a plan they point at) and read what they need of the plan
+// through planForWax alone.
 
 /** What the wax room needs of a saved plan. */
 export interface WaxPlan {
@@ -21,21 +26,31 @@ export interface WaxPlan {
   stampId: string | null;
 }
 
-/**
- * The saved plan with this id as the wax room reads it, or null when there is none the actor may read.
- * Saved plans do not exist yet, so every id is unknown: callers answer 422 "wax.planUnknown" on planId.
- * When they land: `const plan = await getPlan(actor, planId)` (lib/data/plans), catch its notFound → null, and map
- * `plan.summary.waxedAreaPerMetreM2`, `summary.runLengthMm`, `summary.impressionsTotal`, `summary.sides`, the
- * cloth width and the stamp's id into a WaxPlan.
- */
+/** The saved plan with this id as the wax room reads it, or null when there is none (callers answer 422 wax.planUnknown). */
 export async function planForWax(actor: Actor, planId: string): Promise<WaxPlan | null> {
-  void actor;
-  void planId;
-  return null;
+  let plan;
+  try {
+    plan = await getPlan(actor, planId);
+  } catch (error) {
+    if (error instanceof AppError && error.code === "notFound") return null;
+    throw error;
+  }
+  const [row] = await db.select({ stampId: plans.stampId }).from(plans).where(eq(plans.id, planId)).limit(1);
+  const s = plan.summary;
+  return {
+    id: plan.id,
+    name: plan.name,
+    waxedAreaPerMetreM2: s.waxedAreaPerMetreM2,
+    runLengthMm: s.runLengthMm,
+    impressionsTotal: s.impressionsTotal,
+    sides: s.sides,
+    clothWidthMm: plan.layout.cloth.widthMm,
+    stampId: row?.stampId ?? null,
+  };
 }
 
-/** Saved plans to offer in the estimate and wax use forms; none until saved plans exist. */
+/** Saved plans to offer in the estimate and wax use forms, by name. */
 export async function planChoices(actor: Actor): Promise<{ id: string; name: string }[]> {
-  void actor;
-  return [];
+  assertCan(actor, "data:read");
+  return db.select({ id: plans.id, name: plans.name }).from(plans).orderBy(asc(sql`lower(${plans.name})`), asc(plans.id)).limit(1000);
 }

@@ -5,6 +5,7 @@ import { getFormatter, getLocale, getTranslations } from "next-intl/server";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { planPages, plannerValues, type PlanDto, type PlannerStamp } from "@/lib/contracts/plans";
+import { waxPages } from "@/lib/contracts/wax";
 import { getPlan, getPlannerStamp, planHistory } from "@/lib/data/plans";
 import { listStampRequests } from "@/lib/data/requests";
 import { workshopSettings } from "@/lib/data/settings";
@@ -72,6 +73,9 @@ export default async function PlanPage({ params, searchParams }: Props) {
           <div className="flex flex-wrap items-center gap-2 print:hidden">
             <Link href={planPages.sheet(plan.id)} className="rounded-md border border-stone-300 bg-white px-3.5 py-2 text-sm hover:bg-stone-100">
               {t("plans.record.sheet")}
+            </Link>
+            <Link href={waxPages.estimatesForPlan(plan.id)} className="rounded-md border border-stone-300 bg-white px-3.5 py-2 text-sm hover:bg-stone-100">
+              {t("plans.record.estimateWax")}
             </Link>
             {plan.stamps.length && can(actor.role, "stamps:request") ? (
               <Link href={planPages.request(plan.id)} className="rounded-md border border-stone-300 bg-white px-3.5 py-2 text-sm hover:bg-stone-100">

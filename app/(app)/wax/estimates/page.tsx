@@ -14,7 +14,9 @@ export async function generateMetadata(): Promise<Metadata> {
   return { title: (await getTranslations("waxRoom.estimate"))("title") };
 }
 
-export default async function WaxEstimatesPage() {
+type Props = { searchParams: Promise<Record<string, string | string[] | undefined>> };
+
+export default async function WaxEstimatesPage({ searchParams }: Props) {
   const actor = await requirePageActor();
   if (!can(actor.role, "data:read")) return <Forbidden />;
   const [t, recipes, calibration, defaults, estimates, plans, uses] = await Promise.all([
@@ -27,6 +29,9 @@ export default async function WaxEstimatesPage() {
     listWaxUses(actor, { withdrawn: false }),
   ]);
   const canWrite = can(actor.role, "wax:write");
+  // ?plan=<id> (the plan page's "Estimate the wax") chooses that plan when it is one of the choices.
+  const asked = (await searchParams).plan;
+  const initialPlanId = typeof asked === "string" && plans.some((p) => p.id === asked) ? asked : "";
   const cloths = [...new Set(uses.map((u) => u.cloth).filter((c): c is string => !!c))].sort();
   return (
     <>
@@ -40,6 +45,7 @@ export default async function WaxEstimatesPage() {
               return { id: r.id, name: r.name, calibrated: fit?.enoughUses ? { rateGPerM2: fit.fit.rateGPerM2, uses: fit.fit.uses } : null };
             })}
             plans={plans}
+            initialPlanId={initialPlanId}
             cloths={cloths}
             defaults={defaults}
             canWrite={canWrite}

@@ -105,7 +105,7 @@ export default async function StampingSheetPage({ params, searchParams }: Props)
               <dt>{t("plans.sheet.perPiece")}</dt>
               <dd className="tabular-nums">{num(time.impressionsPerPiece, 0)}</dd>
               <dt>{t("plans.sheet.perRun")}</dt>
-              <dd className="tabular-nums">{s.impressionsTotal}</dd>
+              <dd className="tabular-nums">{num(s.impressionsTotal, 0)}</dd>
               <dt>{t("plans.numbers.run")}</dt>
               <dd>{t("plans.numbers.runValue", { metres: num(run.metres, 2), yards: num(run.yards, 2), pieces: run.pieces, kodi: num(run.kodi, 2), pieceLength: len(run.pieceLengthMm) })}</dd>
               <dt>{t("plans.numbers.impressionsPerMetre")}</dt>

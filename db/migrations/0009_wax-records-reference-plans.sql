@@ -1,0 +1,2 @@
+ALTER TABLE "wax_estimates" ADD CONSTRAINT "wax_estimates_plan_id_plans_id_fk" FOREIGN KEY ("plan_id") REFERENCES "public"."plans"("id") ON DELETE restrict ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "wax_uses" ADD CONSTRAINT "wax_uses_plan_id_plans_id_fk" FOREIGN KEY ("plan_id") REFERENCES "public"."plans"("id") ON DELETE restrict ON UPDATE no action;
