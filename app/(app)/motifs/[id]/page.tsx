@@ -21,7 +21,7 @@ export async function generateMetadata(): Promise<Metadata> {
   return { title: (await getTranslations("motifs"))("title") };
 }
 
-const savedKinds = ["saved", "created", "copied"] as const;
+const savedKinds = ["saved", "created", "copied", "stampMade"] as const;
 const availabilityTone = { onShelf: "bg-emerald-50 text-emerald-900", out: "bg-ink-50 text-ink-800", inRepair: "bg-amber-50 text-amber-900", retired: "bg-stone-200 text-stone-800" } as const;
 const eventKinds = ["created", "copied", "edited"] as const;
 
@@ -52,6 +52,11 @@ export default async function MotifPage({ params, searchParams }: { params: Prom
             <Link href={startPlanUrl(motif, lastArrangement)} className="rounded-md bg-ink-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-ink-800" data-testid="start-plan">
               {t("motifs.actions.startPlan")}
             </Link>
+            {can(actor.role, "stamps:requestNew") ? (
+              <Link href={`/motifs/${motif.id}/request-stamp`} className="rounded-md border border-stone-300 bg-white px-3.5 py-2 text-sm font-medium text-stone-800 hover:bg-stone-50" data-testid="request-stamp">
+                {t("requests.ask.open")}
+              </Link>
+            ) : null}
             {canWrite ? (
               <Link href={`/motifs/${motif.id}/edit`} className="rounded-md border border-stone-300 bg-white px-3.5 py-2 text-sm font-medium text-stone-800 hover:bg-stone-50">
                 {t("motifs.actions.edit")}
