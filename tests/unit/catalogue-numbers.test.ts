@@ -12,7 +12,7 @@ const textArguments = new Set([
   "actor", "borrower", "code", "codes", "column", "condition", "due", "dueOn", "email", "expected", "field", "fileName",
   "from", "inviter", "keys", "kind", "location", "material", "materials", "message", "method", "name", "names", "note",
   "now", "options", "outAt", "owner", "place", "seenAt", "problem", "ratio", "reason", "recorded", "reporter", "role", "roles",
-  "setting", "site", "size", "source", "status", "tag", "timeZone", "to", "type", "typed", "unit", "until", "url", "when",
+  "setting", "site", "size", "source", "status", "tag", "timeZone", "to", "type", "typed", "newWax", "perMetre", "unit", "until", "url", "when",
   "workstation",
   // the wax room's quantities, written by format.number and the unit helpers before they reach the message
   // the plans' lengths, names and dates, written before they reach the message
