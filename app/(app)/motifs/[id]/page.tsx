@@ -146,6 +146,21 @@ export default async function MotifPage({ params, searchParams }: { params: Prom
                       {p.name}
                     </Link>{" "}
                     · {t(`plans.arrangements.${p.arrangement as Arrangement}`)} · {measures(format, actor.unitSystem).length(p.clothWidthMm)}
+                    {p.estimates.length ? (
+                      <ul className="ml-4 mt-0.5 list-disc text-xs text-stone-600" data-testid="plan-estimates">
+                        {p.estimates.map((e) => (
+                          <li key={e.id}>
+                            {t("motifs.page.estimateLine", {
+                              name: e.name,
+                              perMetre: measures(format, actor.unitSystem).mass(e.gramsPerMetre),
+                              newWax: measures(format, actor.unitSystem).mass(e.kgNew * 1000),
+                              when: format.dateTime(new Date(e.createdAt), "date"),
+                            })}
+                            {e.planned ? ` · ${t("motifs.page.estimatePlanned")}` : ""}
+                          </li>
+                        ))}
+                      </ul>
+                    ) : null}
                   </li>
                 ))}
               </ul>
