@@ -44,12 +44,17 @@ export function StampForm({
   mode,
   unitSystem,
   locations,
+  hidden = {},
+  cancelTo,
 }: {
   action: Action;
   initial: StampFormValues;
   mode: "create" | "edit";
   unitSystem: UnitSystem;
   locations: { id: string; label: string }[];
+  /** Extra hidden fields (a new-stamp request's id and version). */
+  hidden?: Record<string, string>;
+  cancelTo?: string;
 }) {
   const t = useTranslations();
   const locale = useLocale();
@@ -60,7 +65,7 @@ export function StampForm({
   const lengthUnit = unitSystem === "imperial" ? "in" : "mm";
   const weightUnit = unitSystem === "imperial" ? "oz" : "g";
   const e = state.fieldErrors ?? {};
-  const cancelHref = mode === "edit" ? `/stamps/${encodeURIComponent(initial.code)}` : "/stamps";
+  const cancelHref = cancelTo ?? (mode === "edit" ? `/stamps/${encodeURIComponent(initial.code)}` : "/stamps");
 
   return (
     <form action={formAction} className="space-y-6" aria-label={mode === "edit" ? t("stamps.form.editTitle") : t("stamps.form.newTitle")} noValidate>
@@ -78,6 +83,9 @@ export function StampForm({
         </Notice>
       ) : null}
       <input type="hidden" name="unitSystem" value={unitSystem} />
+      {Object.entries(hidden).map(([name, value]) => (
+        <input key={name} type="hidden" name={name} value={value} />
+      ))}
       {mode === "edit" ? (
         <>
           <input type="hidden" name="version" value={initial.version} />

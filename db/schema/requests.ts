@@ -1,5 +1,6 @@
 import { sql } from "drizzle-orm";
 import { check, date, doublePrecision, index, integer, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { motifs, motifStampRoleEnum } from "./motifs";
 import { plans } from "./plans";
 import { checkouts, stamps } from "./stamps";
 import { users } from "./users";
@@ -75,7 +76,16 @@ export const newStampRequests = pgTable(
     heightMm: doublePrecision("height_mm").notNull(),
     planId: uuid("plan_id").references(() => plans.id, { onDelete: "set null" }),
     note: text("note"),
+    /** The motif the stamp is for and its role in the motif's set (a designer's request), or null (a planner's size). */
+    motifId: uuid("motif_id").references(() => motifs.id, { onDelete: "set null" }),
+    role: motifStampRoleEnum("role"),
+    /** A sketch of the stamp in the object store (checked like a scan), its media type and file name. */
+    sketchKey: text("sketch_key"),
+    sketchType: text("sketch_type"),
+    sketchName: text("sketch_name"),
     state: newStampRequestStateEnum("state").notNull().default("open"),
+    /** The stamp record made from the request when it arrived from the maker. */
+    stampId: uuid("stamp_id").references(() => stamps.id, { onDelete: "set null" }),
     requestedBy: uuid("requested_by").references(() => users.id, { onDelete: "set null" }),
     requesterName: text("requester_name").notNull(),
     answeredBy: uuid("answered_by").references(() => users.id, { onDelete: "set null" }),
@@ -90,6 +100,8 @@ export const newStampRequests = pgTable(
     index("new_stamp_requests_state_idx").on(t.state, t.createdAt),
     check("new_stamp_requests_size_positive", sql`${t.widthMm} > 0 AND ${t.heightMm} > 0`),
     check("new_stamp_requests_declined_reason", sql`${t.state} <> 'declined' OR ${t.declineReason} IS NOT NULL`),
+    check("new_stamp_requests_made_answered", sql`${t.state} <> 'made' OR ${t.answeredAt} IS NOT NULL`),
+    index("new_stamp_requests_motif_idx").on(t.motifId),
   ],
 );
 

@@ -73,6 +73,8 @@ export interface MotifPlanDto {
   clothName: string | null;
   clothWidthMm: number;
   updatedAt: string;
+  /** The wax estimates saved for the plan, newest first. */
+  estimates: { id: string; name: string; gramsPerMetre: number; kgNew: number; planned: boolean; createdAt: string }[];
 }
 
 export interface MotifDto extends MotifSummaryDto {

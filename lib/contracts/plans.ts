@@ -341,8 +341,12 @@ export interface NewStampRequestDto {
   widthMm: number;
   heightMm: number;
   plan: { id: string; name: string } | null;
+  motif: { id: string; name: string } | null;
+  role: "main" | "filler" | "border" | "corner" | "reverse_twin" | null;
   note: string | null;
   state: "open" | "declined" | "made";
+  /** The stamp made from the request (state `made`), while it exists. */
+  stamp: { id: string; code: string } | null;
   requesterName: string;
   answeredByName: string | null;
   answeredAt: string | null;
@@ -358,6 +362,7 @@ export const requestUrls = {
   decline: (id: string) => `/api/v1/stamp-requests/${enc(id)}/decline`,
   newStampRequests: (query: string | URLSearchParams = "") => withQuery("/api/v1/new-stamp-requests", query),
   declineNewStamp: (id: string) => `/api/v1/new-stamp-requests/${enc(id)}/decline`,
+  fulfilNewStamp: (id: string) => `/api/v1/new-stamp-requests/${enc(id)}/stamp`,
   /** The keepers' queue on the shelf. */
   queue: () => "/stamps/requests",
 };
@@ -523,4 +528,19 @@ export function layerPictures(plan: Pick<PlanDto, "stamps" | "borders">): Partia
     if (b.side !== "left") out["border-right"] = picture;
   });
   return out;
+}
+
+/** The new-stamp request form of a motif: size in mm (as the person's language writes numbers), role, note. */
+export function newStampFormInput(form: FormData, locale: string) {
+  const num = (name: string) => {
+    const text = formText(form, name).trim();
+    return text === "" ? undefined : (formNumber(form, name, locale) ?? text);
+  };
+  return {
+    widthMm: num("widthMm"),
+    heightMm: num("heightMm"),
+    motifId: formText(form, "motifId") || null,
+    role: formText(form, "role") || null,
+    note: formText(form, "note"),
+  };
 }

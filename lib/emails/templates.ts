@@ -98,6 +98,26 @@ export function stampRequestMail(
   };
 }
 
+/** To a keeper: someone asks for a new stamp to be made (a size; for a motif, its role in the set). */
+export function newStampRequestMail(t: Translator, p: { requester: string; widthMm: number; heightMm: number; motif: string | null; role: string | null; plan: string | null; note: string | null; sketch: boolean; link: string }) {
+  return {
+    subject: t("requestEmails.newStamp.subject", { requester: p.requester }),
+    ...layout(
+      t,
+      [
+        t("requestEmails.newStamp.greeting"),
+        t("requestEmails.newStamp.body", { requester: p.requester, width: p.widthMm, height: p.heightMm }),
+        ...(p.motif ? [t("requestEmails.newStamp.motif", { motif: p.motif, role: p.role ?? "" })] : []),
+        ...(p.plan ? [t("requestEmails.newStamp.plan", { plan: p.plan })] : []),
+        ...(p.note ? [t("requestEmails.newStamp.note", { note: p.note })] : []),
+        ...(p.sketch ? [t("requestEmails.newStamp.sketch")] : []),
+      ],
+      { href: p.link, label: t("requestEmails.newStamp.action") },
+      t("requestEmails.newStamp.footer"),
+    ),
+  };
+}
+
 /** To whoever asked: the keepers accepted (the stamps are out now, or will be on the first day) or declined. */
 export function stampRequestAnswerMail(
   t: Translator,

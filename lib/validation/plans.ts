@@ -3,7 +3,7 @@ import { issueKey } from "@/lib/errors";
 import { ARRANGEMENTS, checkArrangement, checkGap, layoutShape } from "@/lib/layout/schema";
 import { idParamSchema, isoDate, optionalText, requiredText } from "./common";
 import { bordersListRequestSchema, stampRequestSchema } from "./layout";
-import { stampCodeSchema } from "./stamps";
+import { createStampSchema, stampCodeSchema } from "./stamps";
 
 // Inputs of the cloth plans: a plan (its layout is POST /api/v1/layout's body, its borders beside it), the plan list's
 // query, and the requests a plan sends to the keepers (stamps to check out, a new stamp to make).
@@ -117,15 +117,25 @@ export const stampRequestListQuerySchema = z
 export type StampRequestListQuery = z.output<typeof stampRequestListQuerySchema>;
 
 /** A new stamp to make: its size (mm), the plan it is for, and a note for the keepers. */
+/** The roles a stamp plays in a motif's set (db enum motif_stamp_role). */
+export const newStampRoles = ["main", "filler", "border", "corner", "reverse_twin"] as const;
+
 export const createNewStampRequestSchema = z
   .object({
     widthMm: z.number(keyed).min(5, keyed).max(1000, keyed),
     heightMm: z.number(keyed).min(5, keyed).max(1000, keyed),
     planId: z.uuid("validation.notFound").nullable().optional(),
+    motifId: z.uuid("validation.notFound").nullable().optional(),
+    role: z.enum(newStampRoles, "validation.invalidOption").nullable().optional(),
     note: optionalText(1000),
   })
-  .strict();
+  .strict()
+  .refine((r) => !r.role || r.motifId, { path: ["motifId"], message: "validation.newStampMotifForRole" });
 export type CreateNewStampRequestInput = z.output<typeof createNewStampRequestSchema>;
+
+/** A keeper turns a request into the stamp record made from it: the stamp's fields, from the request's version. */
+export const fulfilNewStampRequestSchema = z.object({ version, stamp: createStampSchema }).strict();
+export type FulfilNewStampRequestInput = z.output<typeof fulfilNewStampRequestSchema>;
 
 export const newStampRequestListQuerySchema = z.object({ state: z.enum(["open", "declined", "made"], "validation.invalidOption").optional() }).strict();
 

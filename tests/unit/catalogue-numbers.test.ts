@@ -12,12 +12,12 @@ const textArguments = new Set([
   "actor", "borrower", "code", "codes", "column", "condition", "due", "dueOn", "email", "expected", "field", "fileName",
   "from", "inviter", "keys", "kind", "location", "material", "materials", "message", "method", "name", "names", "note",
   "now", "options", "outAt", "owner", "place", "seenAt", "problem", "ratio", "reason", "recorded", "reporter", "role", "roles",
-  "setting", "site", "size", "source", "status", "tag", "timeZone", "to", "type", "typed", "unit", "until", "url", "when",
+  "setting", "site", "size", "source", "status", "tag", "timeZone", "to", "type", "typed", "newWax", "perMetre", "unit", "until", "url", "when",
   "workstation",
   // the wax room's quantities, written by format.number and the unit helpers before they reach the message
   // the plans' lengths, names and dates, written before they reach the message
   "area", "band", "changes", "fromOn", "forWhom", "group", "hours", "keeper", "kodi", "left", "length", "path", "perPiece", "perPieceImpressions",
-  "pieceLength", "plan", "plans", "requester", "right", "state", "stamps", "today", "twin", "untilOn", "who", "width", "yards", "gap",
+  "pieceLength", "motif", "plan", "plans", "requester", "right", "state", "stamps", "today", "twin", "untilOn", "who", "width", "yards", "gap",
   // the motif archive's names, dates and lists
   "date", "face", "fields", "file", "uses",
   "amount", "cloth", "currency", "day", "density", "flash", "grams", "level", "limit", "metres", "onHand", "price", "rate", "recipe", "se",

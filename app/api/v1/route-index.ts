@@ -11,6 +11,7 @@ import * as locationsId from "./locations/[id]/route";
 import * as me from "./me/route";
 import * as newStampRequests from "./new-stamp-requests/route";
 import * as newStampRequestsIdDecline from "./new-stamp-requests/[id]/decline/route";
+import * as newStampRequestsIdStamp from "./new-stamp-requests/[id]/stamp/route";
 import * as openapi from "./openapi.json/route";
 import * as plans from "./plans/route";
 import * as plansStamps from "./plans/stamps/route";
@@ -89,6 +90,7 @@ export const routeModules: RouteModule[] = [
   { path: "/api/v1/me", handlers: me },
   { path: "/api/v1/new-stamp-requests", handlers: newStampRequests },
   { path: "/api/v1/new-stamp-requests/{id}/decline", handlers: newStampRequestsIdDecline },
+  { path: "/api/v1/new-stamp-requests/{id}/stamp", handlers: newStampRequestsIdStamp },
   { path: "/api/v1/openapi.json", handlers: openapi },
   { path: "/api/v1/plans", handlers: plans },
   { path: "/api/v1/plans/stamps", handlers: plansStamps },

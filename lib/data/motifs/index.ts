@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
-import { checkouts, motifCollectionMembers, motifCollections, motifColours, motifColourways, motifEvents, motifs, motifStamps, plans, stampScans, stamps, type Motif } from "@/db/schema";
+import { checkouts, motifCollectionMembers, motifCollections, motifColours, motifColourways, motifEvents, motifs, motifStamps, plans, stampScans, stamps, waxEstimates, type Motif } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
 import {
@@ -36,7 +36,16 @@ export async function plansOfMotif(actor: Actor, motifId: string): Promise<Motif
     .from(plans)
     .where(eq(plans.motifId, motifId))
     .orderBy(desc(plans.updatedAt));
-  return rows.map((r) => ({ id: r.id, name: r.name, arrangement: r.arrangement, clothName: null, clothWidthMm: r.clothWidthMm, updatedAt: r.updatedAt.toISOString() }));
+  const estimates = rows.length
+    ? await db
+        .select({ id: waxEstimates.id, planId: waxEstimates.planId, name: waxEstimates.name, gramsPerMetre: waxEstimates.gramsPerMetre, kgNew: waxEstimates.kgNew, planned: waxEstimates.planned, createdAt: waxEstimates.createdAt })
+        .from(waxEstimates)
+        .where(inArray(waxEstimates.planId, rows.map((r) => r.id)))
+        .orderBy(desc(waxEstimates.createdAt))
+    : [];
+  const estimatesOf = (planId: string) =>
+    estimates.filter((e) => e.planId === planId).map((e) => ({ id: e.id, name: e.name, gramsPerMetre: e.gramsPerMetre, kgNew: e.kgNew, planned: e.planned, createdAt: e.createdAt.toISOString() }));
+  return rows.map((r) => ({ id: r.id, name: r.name, arrangement: r.arrangement, clothName: null, clothWidthMm: r.clothWidthMm, updatedAt: r.updatedAt.toISOString(), estimates: estimatesOf(r.id) }));
 }
 
 async function stampSets(tx: Db, motifIds: string[]): Promise<Map<string, MotifStampDto[]>> {

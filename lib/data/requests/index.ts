@@ -1,3 +1,3 @@
 // Requests to the stamp keepers: stamps to check out (stamp-requests) and new stamps to make (new-stamp-requests).
 export { acceptStampRequest, checkOutDueRequests, createStampRequest, declineStampRequest, getStampRequest, listStampRequests } from "./stamp-requests";
-export { createNewStampRequest, declineNewStampRequest, listNewStampRequests } from "./new-stamp-requests";
+export { createNewStampRequest, declineNewStampRequest, fulfilNewStampRequest, getNewStampRequest, listNewStampRequests } from "./new-stamp-requests";

@@ -2,7 +2,8 @@ import "server-only";
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { users } from "@/db/schema";
-import { stampRequestAnswerMail, stampRequestMail } from "@/lib/emails/templates";
+import type { NewStampRequestDto } from "@/lib/contracts/plans";
+import { newStampRequestMail, stampRequestAnswerMail, stampRequestMail } from "@/lib/emails/templates";
 import { env } from "@/lib/env";
 import { pickLocale } from "@/lib/i18n/config";
 import { dateFormat, translator } from "@/lib/i18n/translator";
@@ -55,6 +56,39 @@ export async function mailKeepersAboutRequest(r: RequestMailFacts) {
     );
   } catch (error) {
     console.error("stamp request mail failed", error);
+  }
+}
+
+async function activeKeepers() {
+  const keepers = await db.select().from(users).where(and(eq(users.role, "keeper"), eq(users.disabled, false)));
+  return keepers.length ? keepers : db.select().from(users).where(and(eq(users.role, "admin"), eq(users.disabled, false)));
+}
+
+/** To every active keeper (or, with none, every administrator), each in their language: a new stamp is asked for. */
+export async function mailKeepersAboutNewStamp(r: NewStampRequestDto & { hasSketch?: boolean }) {
+  try {
+    const keepers = await activeKeepers();
+    await Promise.all(
+      keepers.map((keeper) => {
+        const t = translator(pickLocale(keeper.locale));
+        return sendMail({
+          to: keeper.email,
+          ...newStampRequestMail(t, {
+            requester: r.requesterName,
+            widthMm: r.widthMm,
+            heightMm: r.heightMm,
+            motif: r.motif?.name ?? null,
+            role: r.role ? t(`motifs.roles.${r.role}`) : null,
+            plan: r.plan?.name ?? null,
+            note: r.note,
+            sketch: Boolean(r.hasSketch),
+            link: appLink(`/stamps/requests#new-stamp-${r.id}`),
+          }),
+        });
+      }),
+    );
+  } catch (error) {
+    console.error("new-stamp request mail failed", error);
   }
 }
 

@@ -21,7 +21,7 @@ export async function generateMetadata(): Promise<Metadata> {
   return { title: (await getTranslations("motifs"))("title") };
 }
 
-const savedKinds = ["saved", "created", "copied"] as const;
+const savedKinds = ["saved", "created", "copied", "stampMade"] as const;
 const availabilityTone = { onShelf: "bg-emerald-50 text-emerald-900", out: "bg-ink-50 text-ink-800", inRepair: "bg-amber-50 text-amber-900", retired: "bg-stone-200 text-stone-800" } as const;
 const eventKinds = ["created", "copied", "edited"] as const;
 
@@ -52,6 +52,11 @@ export default async function MotifPage({ params, searchParams }: { params: Prom
             <Link href={startPlanUrl(motif, lastArrangement)} className="rounded-md bg-ink-700 px-3.5 py-2 text-sm font-medium text-white hover:bg-ink-800" data-testid="start-plan">
               {t("motifs.actions.startPlan")}
             </Link>
+            {can(actor.role, "stamps:requestNew") ? (
+              <Link href={`/motifs/${motif.id}/request-stamp`} className="rounded-md border border-stone-300 bg-white px-3.5 py-2 text-sm font-medium text-stone-800 hover:bg-stone-50" data-testid="request-stamp">
+                {t("requests.ask.open")}
+              </Link>
+            ) : null}
             {canWrite ? (
               <Link href={`/motifs/${motif.id}/edit`} className="rounded-md border border-stone-300 bg-white px-3.5 py-2 text-sm font-medium text-stone-800 hover:bg-stone-50">
                 {t("motifs.actions.edit")}
@@ -141,6 +146,21 @@ export default async function MotifPage({ params, searchParams }: { params: Prom
                       {p.name}
                     </Link>{" "}
                     · {t(`plans.arrangements.${p.arrangement as Arrangement}`)} · {measures(format, actor.unitSystem).length(p.clothWidthMm)}
+                    {p.estimates.length ? (
+                      <ul className="ml-4 mt-0.5 list-disc text-xs text-stone-600" data-testid="plan-estimates">
+                        {p.estimates.map((e) => (
+                          <li key={e.id}>
+                            {t("motifs.page.estimateLine", {
+                              name: e.name,
+                              perMetre: measures(format, actor.unitSystem).mass(e.gramsPerMetre),
+                              newWax: measures(format, actor.unitSystem).mass(e.kgNew * 1000),
+                              when: format.dateTime(new Date(e.createdAt), "date"),
+                            })}
+                            {e.planned ? ` · ${t("motifs.page.estimatePlanned")}` : ""}
+                          </li>
+                        ))}
+                      </ul>
+                    ) : null}
                   </li>
                 ))}
               </ul>

@@ -2,13 +2,16 @@
 
 import { getTranslations } from "next-intl/server";
 import { revalidatePath } from "next/cache";
+import { redirect } from "next/navigation";
 import type { FormState } from "@/lib/actions/form-state";
 import { runForm } from "@/lib/actions/run-form";
 import { declineFormInput } from "@/lib/contracts/plans";
-import { acceptStampRequest, declineNewStampRequest, declineStampRequest } from "@/lib/data/requests";
+import { stampFormInput } from "@/lib/contracts/stamps";
+import { formText } from "@/lib/contracts/form-input";
+import { acceptStampRequest, declineNewStampRequest, declineStampRequest, fulfilNewStampRequest } from "@/lib/data/requests";
 import { requirePermission } from "@/lib/session";
 import { z } from "@/lib/zod";
-import { acceptRequestSchema, declineRequestSchema } from "@/lib/validation/plans";
+import { acceptRequestSchema, declineRequestSchema, fulfilNewStampRequestSchema } from "@/lib/validation/plans";
 
 const id = z.uuid("validation.notFound");
 const acceptSchema = acceptRequestSchema.extend({ id });
@@ -53,4 +56,28 @@ export async function declineNewStampAction(_prev: FormState, formData: FormData
     },
     (f) => ({ id: f.get("id"), ...declineFormInput(f) }),
   );
+}
+
+const fulfilSchema = fulfilNewStampRequestSchema.extend({ id });
+
+/** A keeper turns a new-stamp request into the stamp record made from it; the stamp's fields sit beside their boxes. */
+export async function fulfilNewStampAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  let target: string | undefined;
+  const state = await runForm(
+    formData,
+    fulfilSchema,
+    async ({ id: requestId, ...input }) => {
+      const actor = await requirePermission("stamps:write");
+      const request = await fulfilNewStampRequest(actor, requestId, input);
+      target = request.motif ? `/motifs/${request.motif.id}?saved=stampMade` : `/stamps/${encodeURIComponent(request.stamp!.code)}?saved=created`;
+    },
+    (f, locale) => ({ id: formText(f, "requestId"), version: Number(formText(f, "requestVersion")), stamp: stampFormInput(f, "create", locale) }),
+  );
+  if (state.status === "success" && target) {
+    revalidatePath("/stamps/requests");
+    redirect(target);
+  }
+  // The stamp's fields arrive as stamp.<name>; the form names them without the prefix.
+  const fieldErrors = state.fieldErrors ? Object.fromEntries(Object.entries(state.fieldErrors).map(([k, v]) => [k.replace(/^stamp\./, ""), v])) : undefined;
+  return { ...state, fieldErrors };
 }

@@ -75,7 +75,7 @@ export default async function RequestQueuePage() {
               {newStamps
                 .filter((n) => n.state === "open")
                 .map((n) => (
-                  <li key={n.id} className="space-y-2 py-3" data-testid={`new-stamp-${n.id}`}>
+                  <li key={n.id} id={`new-stamp-${n.id}`} className="space-y-2 py-3" data-testid={`new-stamp-${n.id}`}>
                     <p className="text-sm">
                       <span className="font-medium">{measures(format, actor.unitSystem).size(n.widthMm, n.heightMm)}</span> · {t("requests.queue.asked", { who: n.requesterName, when: format.dateTime(new Date(n.createdAt), "moment") })}
                       {n.plan ? (
@@ -87,7 +87,19 @@ export default async function RequestQueuePage() {
                         </>
                       ) : null}
                     </p>
+                    {n.motif ? (
+                      <p className="text-sm">
+                        <Link href={`/motifs/${n.motif.id}`} className="text-ink-700 underline">
+                          {t("requests.forMotif", { motif: n.motif.name, role: t(`motifs.roles.${n.role ?? "filler"}`) })}
+                        </Link>
+                      </p>
+                    ) : null}
                     {n.note ? <p className="text-sm text-stone-600">{t("requests.queue.note", { note: n.note })}</p> : null}
+                    {keeper ? (
+                      <Link href={`/stamps/requests/${n.id}/stamp`} className="inline-block rounded-md bg-ink-700 px-3 py-1.5 text-sm font-medium text-white hover:bg-ink-800" data-testid="make-stamp">
+                        {t("requests.make.action")}
+                      </Link>
+                    ) : null}
                     {keeper ? <RequestAnswer id={n.id} version={n.version} canAccept={false} decline={declineNewStampAction} /> : null}
                   </li>
                 ))}

@@ -1,0 +1,48 @@
+"use client";
+
+import Link from "next/link";
+import { useTranslations } from "next-intl";
+import { useActionState } from "react";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { Notice } from "@/components/ui/notice";
+import { Select } from "@/components/ui/select";
+import { initialFormState, type FormState } from "@/lib/actions/form-state";
+
+const roles = ["main", "filler", "border", "corner", "reverse_twin"] as const;
+
+/** A motif's new-stamp request: the size, the role the stamp will play in the set, a note for the maker. */
+export function NewStampRequestForm({ action, motifId, backTo }: { action: (prev: FormState, form: FormData) => Promise<FormState>; motifId: string; backTo: string }) {
+  const t = useTranslations();
+  const [state, formAction, pending] = useActionState(action, initialFormState);
+  const e = state.fieldErrors ?? {};
+  const v = (name: string, fallback = "") => (state.status === "error" ? (state.values?.[name] ?? fallback) : fallback);
+  return (
+    <form action={formAction} className="max-w-xl space-y-4" aria-label={t("requests.ask.title")} noValidate>
+      {state.message ? <Notice tone={state.status === "success" ? "success" : "error"}>{state.message}</Notice> : null}
+      <input type="hidden" name="motifId" value={motifId} />
+      <div className="grid gap-4 sm:grid-cols-2">
+        <Field id="ask-width" label={t("requests.ask.widthMm")} errors={e.widthMm}>
+          {(aria) => <input {...aria} name="widthMm" inputMode="decimal" defaultValue={v("widthMm")} key={`w-${state.status}`} />}
+        </Field>
+        <Field id="ask-height" label={t("requests.ask.heightMm")} errors={e.heightMm}>
+          {(aria) => <input {...aria} name="heightMm" inputMode="decimal" defaultValue={v("heightMm")} key={`h-${state.status}`} />}
+        </Field>
+      </div>
+      <Field id="ask-role" label={t("requests.ask.role")} errors={e.role ?? e.motifId}>
+        {(aria) => <Select {...aria} name="role" defaultValue={v("role", "filler")} options={roles.map((r) => ({ value: r, label: t(`motifs.roles.${r}`) }))} />}
+      </Field>
+      <Field id="ask-note" label={t("requests.ask.note")} errors={e.note}>
+        {(aria) => <textarea {...aria} name="note" rows={3} defaultValue={v("note")} key={`n-${state.status}`} />}
+      </Field>
+      <div className="flex items-center gap-3">
+        <Button type="submit" disabled={pending}>
+          {pending ? t("requests.ask.sending") : t("requests.ask.send")}
+        </Button>
+        <Link href={backTo} className="text-sm text-stone-600 hover:underline">
+          {t("requests.ask.cancel")}
+        </Link>
+      </div>
+    </form>
+  );
+}

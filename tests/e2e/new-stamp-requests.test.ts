@@ -1,0 +1,87 @@
+import type { Browser } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { launchBrowser, signInThroughPage } from "../helpers/browser";
+import { createUser } from "../helpers/db";
+import { testEnv } from "../helpers/env";
+import { expectMessageBeside } from "../helpers/forms";
+import { api, signIn, type Session } from "../helpers/http";
+import { createStampRow, uniquePrefix } from "../helpers/stamps";
+
+// A designer asks for a new stamp from a motif; a keeper sees it in the queue and records the stamp that arrived,
+// which then stands in the motif's set. Both forms with valid and invalid input.
+let browser: Browser;
+let keeperSession: Session;
+let keeper: { email: string; password: string };
+const prefix = uniquePrefix("E2N");
+let motifId: string;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+  keeper = await createUser("keeper");
+  keeperSession = (await signIn(keeper.email, keeper.password))!;
+  await createStampRow({ code: `${prefix}-MAIN`, name: "Leaf main", widthMm: 160, heightMm: 160 });
+  const made = await api("POST", "/api/v1/motifs", { session: keeperSession, body: { name: `${prefix} Falling leaves`, stamps: [{ code: `${prefix}-MAIN`, role: "main" }] } });
+  expect(made.status).toBe(201);
+  motifId = made.body.motif.id;
+});
+
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("new-stamp requests in the browser", () => {
+  it("a designer asks for a border stamp from the motif; a keeper records it and the motif's set shows it", async () => {
+    const { appUrl } = testEnv();
+    const designer = await createUser("designer");
+    const note = `${prefix} leaf border, please`;
+    const page = await browser.newPage();
+    await signInThroughPage(page, designer.email, designer.password);
+    await page.goto(`${appUrl}/motifs/${motifId}`);
+    await page.getByTestId("request-stamp").click();
+    await page.waitForURL(/\/request-stamp$/);
+    await page.getByLabel("Width (mm)").fill("300.5");
+    await page.getByLabel("Height (mm)").fill("80");
+    await page.getByLabel("Role in the set").selectOption("border");
+    await page.getByLabel("Note for the maker").fill(note);
+    await page.getByRole("button", { name: "Send the request" }).click();
+    await page.getByText("Request sent").waitFor();
+    await page.close();
+
+    const keeperPage = await browser.newPage();
+    await signInThroughPage(keeperPage, keeper.email, keeper.password);
+    await keeperPage.goto(`${appUrl}/stamps/requests`);
+    const item = keeperPage.locator('li[data-testid^="new-stamp-"]', { hasText: note });
+    expect(await item.textContent()).toContain(`${prefix} Falling leaves`);
+    await item.getByTestId("make-stamp").click();
+    await keeperPage.waitForURL(/\/stamps\/requests\/[0-9a-f-]{36}\/stamp$/);
+    await keeperPage.getByLabel("Code", { exact: true }).fill(`${prefix}-BORD`);
+    await keeperPage.getByRole("button", { name: "Add the stamp" }).click();
+    await keeperPage.waitForURL(new RegExp(`/motifs/${motifId}\\?saved=stampMade`));
+    await keeperPage.getByText("recorded and in the set").waitFor();
+    expect(await keeperPage.getByTestId("motif-stamps").textContent()).toContain(`${prefix}-BORD`);
+    await keeperPage.close();
+  });
+
+  it("shows the message beside the size for a request without one, keeping the note; and beside the code of a stamp without one", async () => {
+    const { appUrl } = testEnv();
+    const designer = await createUser("designer");
+    const page = await browser.newPage();
+    await signInThroughPage(page, designer.email, designer.password);
+    await page.goto(`${appUrl}/motifs/${motifId}/request-stamp`);
+    await page.getByLabel("Height (mm)").fill("80");
+    await page.getByLabel("Note for the maker").fill("kept note");
+    await page.getByRole("button", { name: "Send the request" }).click();
+    await expectMessageBeside(page.getByLabel("Width (mm)"), /./);
+    expect(await page.getByLabel("Note for the maker").inputValue()).toBe("kept note");
+    await page.close();
+
+    const request = await api("POST", "/api/v1/new-stamp-requests", { session: keeperSession, body: { widthMm: 90, heightMm: 90, motifId, role: "corner" } });
+    const keeperPage = await browser.newPage();
+    await signInThroughPage(keeperPage, keeper.email, keeper.password);
+    await keeperPage.goto(`${appUrl}/stamps/requests/${request.body.request.id}/stamp`);
+    await keeperPage.getByLabel("Code", { exact: true }).fill("not a code!");
+    await keeperPage.getByRole("button", { name: "Add the stamp" }).click();
+    await expectMessageBeside(keeperPage.getByLabel("Code", { exact: true }), /letters, digits/);
+    await keeperPage.close();
+  });
+});
