@@ -13,6 +13,9 @@ export const permissionTable = {
   "plans:write": ["admin", "planner"],
   "wax:write": ["admin", "waxmaster"],
   "motifs:write": ["admin", "keeper", "designer"],
+  "runs:write": ["admin", "planner"],
+  "runs:recordWaxing": ["admin", "waxmaster"],
+  "runs:recordFindings": ["admin", "keeper", "planner", "waxmaster"],
   "data:read": ["admin", "keeper", "planner", "waxmaster", "designer"],
   "account:self": ["admin", "keeper", "planner", "waxmaster", "designer"],
 } as const satisfies Record<string, readonly Role[]>;

@@ -11,6 +11,9 @@ const spec: Record<string, string[]> = {
   "plans:write": ["admin", "planner"],
   "wax:write": ["admin", "waxmaster"],
   "motifs:write": ["admin", "keeper", "designer"],
+  "runs:write": ["admin", "planner"], // create/edit production runs and their stages (and record dye and bleach progress)
+  "runs:recordWaxing": ["admin", "waxmaster"], // record a waxing stage's wax, pot temperatures, the boil-off
+  "runs:recordFindings": ["admin", "keeper", "planner", "waxmaster"], // record quality findings on a run
   "data:read": ["admin", "keeper", "planner", "waxmaster", "designer"],
 };
 
