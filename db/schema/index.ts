@@ -7,3 +7,4 @@ export * from "./wax";
 export * from "./plans";
 export * from "./requests";
 export * from "./motifs";
+export * from "./runs";

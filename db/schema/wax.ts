@@ -1,6 +1,7 @@
 import { sql } from "drizzle-orm";
 import { type AnyPgColumn, boolean, check, date, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { plans } from "./plans";
+import { runStages } from "./runs";
 import { stamps } from "./stamps";
 import { users } from "./users";
 
@@ -183,8 +184,8 @@ export const waxUses = pgTable(
     usedOn: date("used_on").notNull(),
     /** The saved plan waxed; deleting a plan that wax uses point at is refused. */
     planId: uuid("plan_id").references(() => plans.id, { onDelete: "restrict" }),
-    /** A production run's waxing stage; no foreign key until runs exist. */
-    runStageId: uuid("run_stage_id"),
+    /** The production run's waxing stage this use records; a stage that wax uses name is not deleted. */
+    runStageId: uuid("run_stage_id").references((): AnyPgColumn => runStages.id, { onDelete: "restrict" }),
     recipeId: uuid("recipe_id")
       .notNull()
       .references(() => waxRecipes.id, { onDelete: "restrict" }),
@@ -211,6 +212,7 @@ export const waxUses = pgTable(
     index("wax_uses_recipe_idx").on(t.recipeId),
     index("wax_uses_used_on_idx").on(t.usedOn),
     index("wax_uses_plan_idx").on(t.planId),
+    index("wax_uses_run_stage_idx").on(t.runStageId),
     check("wax_uses_area_positive", sql`${t.waxedAreaPerMetreM2} > 0`),
     check("wax_uses_metres_positive", sql`${t.metres} > 0`),
     check("wax_uses_passes_positive", sql`${t.passes} >= 1`),
