@@ -52,6 +52,9 @@ export const errorStatus = {
   motifHasMain: 409,
   collectionInUse: 409,
   collectionTaken: 409,
+  runStageHasRecords: 409,
+  runHasRecords: 409,
+  runClosed: 409,
   internal: 500,
 } as const;
 

@@ -222,13 +222,18 @@ export interface PurchaseListDto {
   currency: Currency;
   pricesMissing: string[];
   belowReorder: string[];
+  /** Saved planned estimates that count (an estimate for a plan that an open run stamps is replaced by the run's stages). */
   estimates: { id: string; name: string; kgNew: number; recipeName: string }[];
+  /** The waxing stages of runs being prepared or in work, with the wax still to put on (estimate − used, kg gross). */
+  runStages: { runId: string; runName: string; stageId: string; position: number; kg: number }[];
 }
 
 export interface WaxDefaultsDto {
   waxRateGPerM2: number;
   waxLossPct: number;
   waxRecoveryPct: number;
+  /** The recovery % measured at the runs' boil-offs; estimates take it as their default recovery when there is one. */
+  measuredRecoveryPct: number | null;
   currency: Currency;
   /** The workshop settings' version a change starts from. */
   version: number;

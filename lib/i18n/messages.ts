@@ -13,6 +13,7 @@ import enStamps from "./messages/en/stamps.json";
 import enWax from "./messages/en/wax.json";
 import enWaxRoom from "./messages/en/wax-room.json";
 import enMotifs from "./messages/en/motifs.json";
+import enRuns from "./messages/en/runs.json";
 import idApi from "./messages/id/api.json";
 import idAuth from "./messages/id/auth.json";
 import idEmails from "./messages/id/emails.json";
@@ -27,6 +28,7 @@ import idStamps from "./messages/id/stamps.json";
 import idWax from "./messages/id/wax.json";
 import idWaxRoom from "./messages/id/wax-room.json";
 import idMotifs from "./messages/id/motifs.json";
+import idRuns from "./messages/id/runs.json";
 
 /** Languages that have a catalogue: every language people can choose (`locales` in config.ts). */
 export type CatalogueLocale = Locale;
@@ -36,8 +38,8 @@ export type CatalogueLocale = Locale;
 // tests/unit/catalogue.test.ts checks no namespace is defined twice, and
 // tests/unit/catalogue-parity.test.ts that the two languages have the same keys and placeholders.
 export const catalogueFiles = {
-  en: [enShell, enAuth, enPeople, enErrors, enEmails, enLayout, enStamps, enScans, enApi, enWax, enWaxRoom, enPlans, enRequests, enMotifs],
-  id: [idShell, idAuth, idPeople, idErrors, idEmails, idLayout, idStamps, idScans, idApi, idWax, idWaxRoom, idPlans, idRequests, idMotifs],
+  en: [enShell, enAuth, enPeople, enErrors, enEmails, enLayout, enStamps, enScans, enApi, enWax, enWaxRoom, enPlans, enRequests, enMotifs, enRuns],
+  id: [idShell, idAuth, idPeople, idErrors, idEmails, idLayout, idStamps, idScans, idApi, idWax, idWaxRoom, idPlans, idRequests, idMotifs, idRuns],
 } satisfies Record<CatalogueLocale, object[]>;
 
 const merge = (files: object[]) => Object.assign({}, ...files) as Record<string, unknown>;

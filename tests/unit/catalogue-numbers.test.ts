@@ -20,6 +20,8 @@ const textArguments = new Set([
   "pieceLength", "motif", "plan", "plans", "requester", "right", "state", "stamps", "today", "twin", "untilOn", "who", "width", "yards", "gap",
   // the motif archive's names, dates and lists
   "date", "face", "fields", "file", "uses",
+  // production runs: the stage numbers a refusal lists ("2, 4")
+  "stages",
   "amount", "cloth", "currency", "day", "density", "flash", "grams", "level", "limit", "metres", "onHand", "price", "rate", "recipe", "se",
 ]);
 

@@ -20,6 +20,12 @@ import * as plansId from "./plans/[id]/route";
 import * as plansIdDuplicate from "./plans/[id]/duplicate/route";
 import * as plansIdHistory from "./plans/[id]/history/route";
 import * as plansIdRecompute from "./plans/[id]/recompute/route";
+import * as runsRoute from "./runs/route";
+import * as runsFlaggedStamps from "./runs/flagged-stamps/route";
+import * as runsId from "./runs/[id]/route";
+import * as runsIdFindings from "./runs/[id]/findings/route";
+import * as runsIdStagesProgress from "./runs/[id]/stages/[stageId]/progress/route";
+import * as runsIdStagesReadings from "./runs/[id]/stages/[stageId]/readings/route";
 import * as settings from "./settings/route";
 import * as stampRequests from "./stamp-requests/route";
 import * as stampRequestsId from "./stamp-requests/[id]/route";
@@ -99,6 +105,12 @@ export const routeModules: RouteModule[] = [
   { path: "/api/v1/plans/{id}/duplicate", handlers: plansIdDuplicate },
   { path: "/api/v1/plans/{id}/history", handlers: plansIdHistory },
   { path: "/api/v1/plans/{id}/recompute", handlers: plansIdRecompute },
+  { path: "/api/v1/runs", handlers: runsRoute },
+  { path: "/api/v1/runs/flagged-stamps", handlers: runsFlaggedStamps },
+  { path: "/api/v1/runs/{id}", handlers: runsId },
+  { path: "/api/v1/runs/{id}/findings", handlers: runsIdFindings },
+  { path: "/api/v1/runs/{id}/stages/{stageId}/progress", handlers: runsIdStagesProgress },
+  { path: "/api/v1/runs/{id}/stages/{stageId}/readings", handlers: runsIdStagesReadings },
   { path: "/api/v1/settings", handlers: settings },
   { path: "/api/v1/stamp-requests", handlers: stampRequests },
   { path: "/api/v1/stamp-requests/{id}", handlers: stampRequestsId },

@@ -7,6 +7,7 @@ import type { EstimateDto, EstimateResultDto, RateBasis } from "@/lib/contracts/
 import { AppError } from "@/lib/errors";
 import { runFieldsOf, type EstimateRequest, type SaveEstimateInput, type UpdateEstimateInput } from "@/lib/validation/wax";
 import { estimateComponents, estimateWax, parseWax, runLengthSchema, runMetres, type RunLength } from "@/lib/wax";
+import { measuredRecovery } from "../runs/records";
 import { currentSettings } from "../settings";
 import { calibratedRateFor } from "./calibration";
 import { planForWax } from "./plans";
@@ -56,7 +57,8 @@ export async function computeEstimate(actor: Actor, request: EstimateRequest, tx
       : { gPerM2: settings.waxRateGPerM2, basis: "default", uses: null, standardErrorGPerM2: null };
   }
   const lossPct = request.lossPct ?? settings.waxLossPct;
-  const recoveryPct = request.recoveryPct ?? settings.waxRecoveryPct;
+  // The boil-offs' measured recovery, once runs have recorded one, replaces the wax master's setting as the default.
+  const recoveryPct = request.recoveryPct ?? (await measuredRecovery(tx)) ?? settings.waxRecoveryPct;
 
   const e = estimateWax({
     waxedAreaPerMetreM2: waxedAreaPerMetreM2!,

@@ -3,18 +3,21 @@ import { db } from "@/db";
 import { assertCan, type Actor } from "@/lib/authz";
 import type { PurchaseListDto } from "@/lib/contracts/wax";
 import { purchaseList } from "@/lib/wax";
+import { openRunWaxNeeds } from "../runs/purchase";
 import { currentSettings } from "../settings";
 import { listEstimates } from "./estimates";
 import { loadMaterials, onHandByMaterial, toMaterialRef } from "./shared";
 
 // What to buy: the saved estimates marked planned, summed by material, against stock on hand and each material's
-// reorder level (lib/wax purchaseList), priced at today's prices per kg.
+// reorder level (lib/wax purchaseList), priced at today's prices per kg. A run being prepared or in work brings
+// its waxing stages' estimates instead of its plans' planned estimates, so the same cloth is never counted twice.
 
 export async function getPurchaseList(actor: Actor): Promise<PurchaseListDto> {
   assertCan(actor, "data:read");
-  const [materials, onHand, planned, { settings }] = await Promise.all([loadMaterials(db), onHandByMaterial(db), listEstimates(actor, { planned: true }), currentSettings()]);
+  const [materials, onHand, allPlanned, { settings }, runNeeds] = await Promise.all([loadMaterials(db), onHandByMaterial(db), listEstimates(actor, { planned: true }), currentSettings(), openRunWaxNeeds()]);
+  const planned = allPlanned.filter((e) => !(e.planId && runNeeds.planIds.has(e.planId)));
   const list = purchaseList(
-    planned.map((e) => ({ byMaterial: e.results.byMaterial.map((m) => ({ material: m.material, kg: m.kg })) })),
+    [...planned.map((e) => ({ byMaterial: e.results.byMaterial.map((m) => ({ material: m.material, kg: m.kg })) })), ...runNeeds.stages.map((s) => ({ byMaterial: s.byMaterial }))],
     materials.map((m) => ({ material: m.id, name: m.name, onHandKg: onHand.get(m.id) ?? 0, reorderLevelKg: m.reorderLevelKg, pricePerKg: m.pricePerKg })),
   );
   const byId = new Map(materials.map((m) => [m.id, m]));
@@ -41,5 +44,6 @@ export async function getPurchaseList(actor: Actor): Promise<PurchaseListDto> {
     pricesMissing: list.pricesMissing.map((id) => ref(id).name),
     belowReorder: list.belowReorder.map((id) => ref(id).name),
     estimates: planned.map((e) => ({ id: e.id, name: e.name, kgNew: e.results.kgNew, recipeName: e.recipe.name })),
+    runStages: runNeeds.stages.map((s) => ({ runId: s.runId, runName: s.runName, stageId: s.stageId, position: s.position, kg: s.kg })),
   };
 }

@@ -14,7 +14,7 @@ import { loadRecipes } from "./shared";
 // Wax uses: what one waxing actually used. Recording one takes its wax out of stock (a "use" movement per material
 // of the recipe, by mass share) and adds its impressions to the stamps through the one writer of impression
 // counts; the calibration fits the application rate from them. The same record serves a production run's waxing
-// stage later (run_stage_id). A use is never edited: a mistaken one is withdrawn, which moves its wax back into
+// stage (run_stage_id, written through writeWaxUse). A use is never edited: a mistaken one is withdrawn, which moves its wax back into
 // stock and takes its impressions back, and leaves it out of the calibration.
 
 function toUseDto(u: WaxUseRow, recipeName: string, impressions: { stampCode: string; impressions: number }[]): WaxUseDto {
@@ -85,57 +85,89 @@ export async function recordWaxUse(actor: Actor, input: RecordWaxUseInput): Prom
   const plan = input.planId ? await planForWax(actor, input.planId) : null;
   if (input.planId && !plan) throw new AppError("unprocessable", {}, { planId: ["wax.planUnknown"] });
   const id = await db.transaction(async (tx) => {
-    const [recipe] = await loadRecipes(tx, [input.recipeId]);
-    if (!recipe) throw new AppError("unprocessable", {}, { recipeId: ["wax.recipeUnknown"] });
-    if (recipe.row.archivedAt) throw new AppError("recipeArchived", { name: recipe.row.name }, { recipeId: [{ key: "errors.recipeArchived", values: { name: recipe.row.name } }] });
-
-    let stampAddition: ImpressionsToAdd | null = null;
+    let stampAdditions: ImpressionsToAdd[] = [];
     if (plan) {
       const made = impressionsOfWaxing(plan, input.metres, input.passes ?? 1);
-      if (plan.stampId && made.total > 0) stampAddition = { stampId: plan.stampId, impressions: made.front, backFace: made.back };
+      if (plan.stampId && made.total > 0) stampAdditions = [{ stampId: plan.stampId, impressions: made.front, backFace: made.back }];
     } else if (input.stampCode && input.impressions) {
       const [stamp] = await tx.select({ id: stamps.id }).from(stamps).where(eq(stamps.code, input.stampCode)).limit(1);
       if (!stamp) throw new AppError("unprocessable", {}, { stampCode: ["validation.stampNotFound"] });
-      stampAddition = { stampId: stamp.id, impressions: input.impressions };
+      stampAdditions = [{ stampId: stamp.id, impressions: input.impressions }];
     }
-
     const waxedAreaPerMetreM2 = plan ? plan.waxedAreaPerMetreM2 : input.waxedAreaPerMetreM2!;
-    const grams = gramsOfUse({ ...input, waxedAreaPerMetreM2 });
-    const [use] = await tx
-      .insert(waxUses)
-      .values({
-        usedOn: input.usedOn,
-        planId: input.planId ?? null,
-        recipeId: recipe.row.id,
-        cloth: input.cloth?.trim() || null,
-        waxedAreaPerMetreM2,
-        metres: input.metres,
-        passes: input.passes ?? 1,
-        gramsUsed: input.gramsUsed ?? null,
-        potBeforeG: input.potBeforeG ?? null,
-        potAfterG: input.potAfterG ?? null,
-        potAddedG: input.potAddedG ?? null,
-        grams,
-        note: input.note ?? null,
-        recordedBy: actor.id,
-        recordedByName: actor.name,
-      })
-      .returning();
-
-    if (grams > 0) {
-      const fractions = massFractions(recipe.components);
-      await tx.insert(waxStockMovements).values(
-        recipe.components.map((c, i) => ({ materialId: c.materialId, kind: "use" as const, kg: -(grams * fractions[i]) / 1000, waxUseId: use.id, actorId: actor.id, actorName: actor.name })),
-      );
-    }
-    if (stampAddition) {
-      const added = await addImpressions(tx, [stampAddition], { kind: "waxUse", id: use.id }, actor);
-      const positive = added.filter((a) => a.impressions > 0);
-      if (positive.length) await tx.insert(waxUseImpressions).values(positive.map((a) => ({ waxUseId: use.id, stampId: a.stampId, stampCode: a.code, impressions: a.impressions })));
-    }
-    return use.id;
+    return writeWaxUse(tx, actor, { ...input, waxedAreaPerMetreM2, planId: input.planId ?? null, runStageId: null }, stampAdditions, { kind: "waxUse" });
   });
   return getWaxUse(actor, id);
+}
+
+/** What writeWaxUse stores: the use's own fields, resolved (the area from the plan when there is one). */
+export interface WaxUseToWrite {
+  usedOn: string;
+  planId: string | null;
+  runStageId: string | null;
+  recipeId: string;
+  cloth?: string | null;
+  waxedAreaPerMetreM2: number;
+  metres: number;
+  passes?: number;
+  gramsUsed?: number;
+  potBeforeG?: number;
+  potAfterG?: number;
+  potAddedG?: number;
+  note?: string | null;
+}
+
+/**
+ * Writes one wax use in the caller's transaction — the wax room's form and a production run's waxing stage both
+ * come here, so they are the same record: the use, a stock "use" movement per material of its recipe (kg = grams
+ * × mass share / 1000) and its impressions through the one writer of impression counts (kept per stamp so a
+ * withdrawal takes them back). An unknown recipe → 422 on recipeId; an archived one → 409 recipeArchived.
+ */
+export async function writeWaxUse(
+  tx: Transaction,
+  actor: Actor,
+  input: WaxUseToWrite,
+  stampAdditions: readonly ImpressionsToAdd[],
+  source: { kind: "waxUse" } | { kind: "runStage"; id: string },
+): Promise<string> {
+  const [recipe] = await loadRecipes(tx, [input.recipeId]);
+  if (!recipe) throw new AppError("unprocessable", {}, { recipeId: ["wax.recipeUnknown"] });
+  if (recipe.row.archivedAt) throw new AppError("recipeArchived", { name: recipe.row.name }, { recipeId: [{ key: "errors.recipeArchived", values: { name: recipe.row.name } }] });
+  const grams = gramsOfUse(input);
+  const [use] = await tx
+    .insert(waxUses)
+    .values({
+      usedOn: input.usedOn,
+      planId: input.planId,
+      runStageId: input.runStageId,
+      recipeId: recipe.row.id,
+      cloth: input.cloth?.trim() || null,
+      waxedAreaPerMetreM2: input.waxedAreaPerMetreM2,
+      metres: input.metres,
+      passes: input.passes ?? 1,
+      gramsUsed: input.gramsUsed ?? null,
+      potBeforeG: input.potBeforeG ?? null,
+      potAfterG: input.potAfterG ?? null,
+      potAddedG: input.potAddedG ?? null,
+      grams,
+      note: input.note ?? null,
+      recordedBy: actor.id,
+      recordedByName: actor.name,
+    })
+    .returning();
+
+  if (grams > 0) {
+    const fractions = massFractions(recipe.components);
+    await tx.insert(waxStockMovements).values(
+      recipe.components.map((c, i) => ({ materialId: c.materialId, kind: "use" as const, kg: -(grams * fractions[i]) / 1000, waxUseId: use.id, actorId: actor.id, actorName: actor.name })),
+    );
+  }
+  if (stampAdditions.length) {
+    const added = await addImpressions(tx, stampAdditions, source.kind === "runStage" ? source : { kind: "waxUse", id: use.id }, actor);
+    const positive = added.filter((a) => a.impressions > 0);
+    if (positive.length) await tx.insert(waxUseImpressions).values(positive.map((a) => ({ waxUseId: use.id, stampId: a.stampId, stampCode: a.code, impressions: a.impressions })));
+  }
+  return use.id;
 }
 
 /**
