@@ -1,6 +1,7 @@
 import type { Database } from "@/db";
 import { seedPlans } from "../seed/plans";
 import { seedMotifs } from "../seed/motifs";
+import { seedRuns } from "../seed/runs";
 import { seedScans } from "../seed/scans";
 import { seedStamps } from "../seed/stamps";
 import { demoUsers, seedUsers } from "../seed/users";
@@ -14,6 +15,7 @@ export async function seedDemo(db: Database) {
   await seedWax(db);
   await seedPlans(db);
   await seedMotifs(db);
+  await seedRuns(db);
 }
 
 export function printSignIns(appUrl = process.env.APP_URL ?? "http://localhost:3000") {
