@@ -55,6 +55,7 @@ export const errorStatus = {
   runStageHasRecords: 409,
   runHasRecords: 409,
   runClosed: 409,
+  planInRuns: 409,
   internal: 500,
 } as const;
 

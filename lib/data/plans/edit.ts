@@ -1,7 +1,7 @@
 import "server-only";
 import { asc, count, eq, sql } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
-import { planStamps, plans, waxEstimates, waxUses, type Plan } from "@/db/schema";
+import { planStamps, plans, runPlans, runs, runStages, waxEstimates, waxUses, type Plan } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
 import { pickLocale } from "@/lib/i18n/config";
@@ -168,8 +168,24 @@ export async function deletePlan(actor: Actor, id: string, version: number): Pro
     const row = await findPlan(tx, id, true);
     if (row.version !== version) throw new AppError("versionConflict");
     await refuseIfInWaxRecords(tx, id);
+    await refuseIfInRuns(tx, id);
     await tx.delete(plans).where(eq(plans.id, id));
   });
+}
+
+/** Refuses (409 planInRuns, naming them) to delete a plan that production runs stamp; the foreign keys back this up. */
+async function refuseIfInRuns(tx: Transaction, planId: string) {
+  const named = await tx
+    .selectDistinct({ id: runs.id, name: runs.name })
+    .from(runs)
+    .leftJoin(runPlans, eq(runPlans.runId, runs.id))
+    .leftJoin(runStages, eq(runStages.runId, runs.id))
+    .where(sql`${runPlans.planId} = ${planId} OR ${runStages.planId} = ${planId}`)
+    .orderBy(asc(runs.name));
+  if (named.length === 0) return;
+  const names = named.slice(0, 5).map((r) => `“${r.name}”`);
+  if (named.length > 5) names.push("…");
+  throw new AppError("planInRuns", { count: named.length, names: names.join(", ") }, undefined, { runs: named });
 }
 
 /**
