@@ -56,6 +56,7 @@ export const errorStatus = {
   runHasRecords: 409,
   runClosed: 409,
   planInRuns: 409,
+  stampInRuns: 409,
   internal: 500,
 } as const;
 

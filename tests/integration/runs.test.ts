@@ -322,6 +322,33 @@ describe("what a run points at", () => {
   });
 });
 
+describe("a stamp a run needs", () => {
+  it("is not deleted: refused naming the run; a stage that waits for its plan says so", async () => {
+    const code = `${prefix}-X`;
+    await createStampRow({ code, name: `Extra ${prefix}` });
+    const run = await startRun("needs a stamp", {
+      planIds: [],
+      stages: [
+        { kind: "dye", dyeMethod: "brush", colourName: "Red", swatch: "#aa2200" },
+        { kind: "wax", waxMethod: "stamp", stamps: [{ code, face: "front" }] },
+        { kind: "boil_off" },
+      ],
+    });
+    expect(run.stages.map((s) => s.kind)).toEqual(["dye", "wax", "boil_off"]);
+    expect(run.stages[1].estimate.kg).toBe(0);
+    const summary = (await api("GET", `/api/v1/runs?q=${encodeURIComponent(`${prefix} needs a stamp`)}`, { session: sessions.planner })).body.runs[0];
+    expect(summary.waitingForPlan).toBe(true);
+    const stamp = (await api("GET", `/api/v1/stamps/${code}`, { session: sessions.keeper })).body.stamp;
+    const del = await api("DELETE", `/api/v1/stamps/${code}?version=${stamp.version}`, { session: sessions.keeper });
+    expect(del.status).toBe(409);
+    expect(del.body.error.code).toBe("stampInRuns");
+    expect(del.body.error.message).toContain(`${prefix} needs a stamp`);
+    const unknown = await api("POST", "/api/v1/runs", { session: sessions.planner, body: runBody("unknown stamp", { stages: [{ kind: "wax", waxMethod: "stamp", stamps: [{ code: `${prefix}-NONE` }] }] }) });
+    expect(unknown.status).toBe(422);
+    expect(unknown.body.error.fields["stages.0.stamps.0.code"]).toEqual([`There is no stamp with the code ${prefix}-NONE.`]);
+  });
+});
+
 describe("the purchase list", () => {
   it("counts an open run's waxing stages instead of its plan's planned estimate", async () => {
     const est = await api("POST", "/api/v1/wax/estimates", { session: sessions.waxmaster, body: { name: `${prefix} planned`, planId, recipeId: recipe.id, rateGPerM2: 90, planned: true } });

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, eq } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
-import { locations, planStamps, plans, stamps, type Stamp } from "@/db/schema";
+import { locations, planStamps, plans, stamps, type Stamp, runs, runStages, runStageStamps } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
 import { type Condition } from "@/lib/stamps/condition";
@@ -190,6 +190,21 @@ async function refuseIfInPlans(tx: Transaction, stampId: string) {
   throw new AppError("stampInPlans", { count: using.length, plans: names.join(", ") }, undefined, { plans: using });
 }
 
+/** Refuses (409 stampInRuns, naming them) to delete a stamp that production runs' waxing stages need. */
+async function refuseIfInRuns(tx: Transaction, stampId: string) {
+  const using = await tx
+    .selectDistinct({ id: runs.id, name: runs.name })
+    .from(runStageStamps)
+    .innerJoin(runStages, eq(runStages.id, runStageStamps.stageId))
+    .innerJoin(runs, eq(runs.id, runStages.runId))
+    .where(eq(runStageStamps.stampId, stampId))
+    .orderBy(runs.name);
+  if (using.length === 0) return;
+  const names = using.slice(0, 5).map((r) => `“${r.name}”`);
+  if (using.length > 5) names.push("…");
+  throw new AppError("stampInRuns", { count: using.length, names: names.join(", ") }, undefined, { runs: using });
+}
+
 export async function deleteStamp(actor: Actor, code: string, version?: number) {
   assertCan(actor, "stamps:write");
   const scanKeys = await db.transaction(async (tx) => {
@@ -197,6 +212,7 @@ export async function deleteStamp(actor: Actor, code: string, version?: number) 
     if (version !== undefined && version !== stamp.version) throw new AppError("versionConflict");
     if (await openCheckoutOf(tx, stamp.id)) throw new AppError("stampCheckedOut");
     await refuseIfInPlans(tx, stamp.id);
+    await refuseIfInRuns(tx, stamp.id);
     const keys = await scanObjectKeys(stamp.id, tx);
     try {
       await tx.delete(stamps).where(eq(stamps.id, stamp.id));
