@@ -134,6 +134,16 @@ describe("a run from a colourway", () => {
     expect(stale.status).toBe(409);
     expect(stale.body.error.code).toBe("versionConflict");
     expect((await api("GET", `/api/v1/runs/${run.id}`, { session: sessions.keeper })).body.run.dueOn).toBe("2027-01-15");
+
+    // A stopped run takes no more records.
+    const halted = await api("PATCH", `/api/v1/runs/${run.id}`, { session: sessions.planner, body: { version: first.body.run.version, state: "halted", stateNote: "cloth ran out" } });
+    expect(halted.status).toBe(200);
+    expect(halted.body.run).toMatchObject({ state: "halted", stateNote: "cloth ran out" });
+    expect(halted.body.run.history.map((h: { kind: string }) => h.kind)).toEqual(["created", "edited", "state"]);
+    const dye = halted.body.run.stages.find((s: Stage) => s.kind === "dye");
+    const late = await api("POST", `/api/v1/runs/${run.id}/stages/${dye.id}/progress`, { session: sessions.planner, body: { doneOn: today, metres: 3 } });
+    expect(late.status).toBe(409);
+    expect(late.body.error.code).toBe("runClosed");
   });
 });
 

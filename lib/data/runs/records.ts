@@ -49,7 +49,7 @@ export async function recordProgress(actor: Actor, runId: string, stageId: strin
   await db.transaction(async (tx) => {
     const { run, stage } = await stageOf(tx, runId, stageId, true);
     assertCan(actor, progressPermission(stage));
-    if (run.state === "complete" || run.state === "halted") throw new AppError("runClosed", { state: run.state });
+    if (run.state === "complete" || run.state === "halted") throw new AppError("runClosed");
     const issues = progressIssuesForKind(stage.kind, input);
     if (issues.length) throw new AppError("unprocessable", {}, fieldsOf(issues));
     if (input.stampImpressions && stage.kind !== "wax") throw new AppError("unprocessable", {}, { stampImpressions: ["runs.onlyWaxing"] });
