@@ -381,13 +381,25 @@ export function stampRequestFormInput(form: FormData) {
 }
 
 /** The new-stamp request form: the size in the person's units (hidden `unit`), the plan, a note. */
+/**
+ * A new-stamp request as typed, from the planner's fit helper or a motif's page: width and height in the person's
+ * unit (`unit` = in for imperial people, else mm), the plan or the motif and its role in the set, a note.
+ */
 export function newStampRequestFormInput(form: FormData, locale: string) {
   const unit = formText(form, "unit") === "in" ? "in" : "mm";
-  const required = (v: number | undefined) => v ?? undefined;
+  const size = (name: string) => {
+    const text = formText(form, name).trim();
+    if (text === "") return undefined;
+    const mm = lengthMm(form, name, unit, locale);
+    // an unreadable number goes to the schema as typed, so its message is the schema's
+    return mm === undefined || Number.isNaN(mm) ? text : mm;
+  };
   return {
-    widthMm: required(lengthMm(form, "width", unit, locale)),
-    heightMm: required(lengthMm(form, "height", unit, locale)),
+    widthMm: size("width"),
+    heightMm: size("height"),
     planId: formOptional(form, "planId") ?? null,
+    motifId: formOptional(form, "motifId") ?? null,
+    role: formOptional(form, "role") ?? null,
     note: formText(form, "note"),
   };
 }
@@ -530,17 +542,3 @@ export function layerPictures(plan: Pick<PlanDto, "stamps" | "borders">): Partia
   return out;
 }
 
-/** The new-stamp request form of a motif: size in mm (as the person's language writes numbers), role, note. */
-export function newStampFormInput(form: FormData, locale: string) {
-  const num = (name: string) => {
-    const text = formText(form, name).trim();
-    return text === "" ? undefined : (formNumber(form, name, locale) ?? text);
-  };
-  return {
-    widthMm: num("widthMm"),
-    heightMm: num("heightMm"),
-    motifId: formText(form, "motifId") || null,
-    role: formText(form, "role") || null,
-    note: formText(form, "note"),
-  };
-}

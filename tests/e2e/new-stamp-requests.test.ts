@@ -62,6 +62,50 @@ describe("new-stamp requests in the browser", () => {
     await keeperPage.close();
   });
 
+  it("a designer who works in inches asks in inches; the request is kept in mm and the queue shows inches to an imperial keeper", async () => {
+    const { appUrl } = testEnv();
+    const designer = await createUser("designer", undefined, { unitSystem: "imperial" });
+    const note = `${prefix} inch-sized corner`;
+    const page = await browser.newPage();
+    await signInThroughPage(page, designer.email, designer.password);
+    await page.goto(`${appUrl}/motifs/${motifId}/request-stamp`);
+    await page.getByLabel("Width (in)").fill("4");
+    await page.getByLabel("Height (in)").fill("2.5");
+    await page.getByLabel("Role in the set").selectOption("corner");
+    await page.getByLabel("Note for the maker").fill(note);
+    await page.getByRole("button", { name: "Send the request" }).click();
+    await page.getByText("Request sent").waitFor();
+    await page.close();
+
+    const listed = await api("GET", "/api/v1/new-stamp-requests", { session: keeperSession });
+    const made = listed.body.requests.find((r: { note: string | null }) => r.note === note);
+    // 1 in = 25.4 mm exactly (NIST SP 811, appendix B): 4 in = 101.6 mm, 2.5 in = 63.5 mm
+    expect(made.widthMm).toBeCloseTo(101.6, 6);
+    expect(made.heightMm).toBeCloseTo(63.5, 6);
+
+    const imperialKeeper = await createUser("keeper", undefined, { unitSystem: "imperial" });
+    const keeperPage = await browser.newPage();
+    await signInThroughPage(keeperPage, imperialKeeper.email, imperialKeeper.password);
+    await keeperPage.goto(`${appUrl}/stamps/requests`);
+    const item = keeperPage.locator('li[data-testid^="new-stamp-"]', { hasText: note });
+    expect(await item.textContent()).toMatch(/4\s*×\s*2\.5\s*in/);
+    await keeperPage.close();
+  });
+
+  it("refuses an inch size written wrongly beside the field, keeping what was typed", async () => {
+    const { appUrl } = testEnv();
+    const designer = await createUser("designer", undefined, { unitSystem: "imperial" });
+    const page = await browser.newPage();
+    await signInThroughPage(page, designer.email, designer.password);
+    await page.goto(`${appUrl}/motifs/${motifId}/request-stamp`);
+    await page.getByLabel("Width (in)").fill("four");
+    await page.getByLabel("Height (in)").fill("2.5");
+    await page.getByRole("button", { name: "Send the request" }).click();
+    await expectMessageBeside(page.getByLabel("Width (in)"), /./);
+    expect(await page.getByLabel("Width (in)").inputValue()).toBe("four");
+    await page.close();
+  });
+
   it("shows the message beside the size for a request without one, keeping the note; and beside the code of a stamp without one", async () => {
     const { appUrl } = testEnv();
     const designer = await createUser("designer");

@@ -6,9 +6,6 @@ import { redirect } from "next/navigation";
 import type { FormState } from "@/lib/actions/form-state";
 import { runForm } from "@/lib/actions/run-form";
 import { motifFormInput } from "@/lib/contracts/motifs";
-import { newStampFormInput } from "@/lib/contracts/plans";
-import { createNewStampRequest } from "@/lib/data/requests";
-import { createNewStampRequestSchema } from "@/lib/validation/plans";
 import { formText } from "@/lib/contracts/form-input";
 import { copyMotif, createMotif, deleteMotif, updateMotif } from "@/lib/data/motifs";
 import { AppError } from "@/lib/errors";
@@ -110,19 +107,4 @@ export async function deleteMotifAction(_prev: FormState, formData: FormData): P
     redirect(`/motifs?deleted=${encodeURIComponent(name)}`);
   }
   return state;
-}
-
-/** A designer (or planner) asks the keepers for a new stamp for this motif: size, role in the set, note. */
-export async function requestNewStampAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  return runForm(
-    formData,
-    createNewStampRequestSchema,
-    async (input) => {
-      const actor = await requirePermission("stamps:requestNew");
-      await createNewStampRequest(actor, input);
-      revalidatePath("/stamps/requests");
-      return { status: "success", message: (await getTranslations("requests"))("ask.sent") };
-    },
-    (f, locale) => newStampFormInput(f, locale),
-  );
 }

@@ -5,14 +5,14 @@ import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import type { FormState } from "@/lib/actions/form-state";
 import { runForm } from "@/lib/actions/run-form";
-import { newStampRequestFormInput, planFormInput, planPages, stampRequestFormInput } from "@/lib/contracts/plans";
+import { planFormInput, planPages, stampRequestFormInput } from "@/lib/contracts/plans";
 import { formText } from "@/lib/contracts/form-input";
 import { createPlan, deletePlan, duplicatePlan, recomputePlan, updatePlan } from "@/lib/data/plans";
-import { createNewStampRequest, createStampRequest } from "@/lib/data/requests";
+import { createStampRequest } from "@/lib/data/requests";
 import { AppError } from "@/lib/errors";
 import { requirePermission } from "@/lib/session";
 import { z } from "@/lib/zod";
-import { createNewStampRequestSchema, createPlanSchema, createStampRequestSchema, updatePlanSchema } from "@/lib/validation/plans";
+import { createPlanSchema, createStampRequestSchema, updatePlanSchema } from "@/lib/validation/plans";
 
 const idField = z.uuid("validation.notFound");
 const versionField = z.coerce.number("validation.required").int().positive();
@@ -117,19 +117,4 @@ export async function requestStampsAction(_prev: FormState, formData: FormData):
     redirect(planId ? `${planPages.one(planId)}?saved=requested` : "/stamps/requests");
   }
   return state;
-}
-
-/** "Make a stamp W mm wide": a new-stamp request for the keepers' queue. */
-export async function requestNewStampAction(_prev: FormState, formData: FormData): Promise<FormState> {
-  return runForm(
-    formData,
-    createNewStampRequestSchema,
-    async (input) => {
-      const actor = await requirePermission("stamps:requestNew");
-      await createNewStampRequest(actor, input);
-      revalidatePath("/stamps/requests");
-      return { status: "success", message: (await getTranslations("plans.newStamp"))("sent") };
-    },
-    newStampRequestFormInput,
-  );
 }

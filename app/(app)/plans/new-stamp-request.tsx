@@ -8,7 +8,7 @@ import { Modal } from "@/components/ui/modal";
 import { Notice } from "@/components/ui/notice";
 import { initialFormState } from "@/lib/actions/form-state";
 import type { UnitSystem } from "@/lib/stamps/format";
-import { requestNewStampAction } from "./actions";
+import { requestNewStampAction } from "../stamps/requests/actions";
 
 const shown = (mm: number, unit: "mm" | "in") => String(Number((unit === "in" ? mm / 25.4 : mm).toFixed(unit === "in" ? 3 : 1)));
 

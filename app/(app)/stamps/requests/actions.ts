@@ -5,13 +5,13 @@ import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import type { FormState } from "@/lib/actions/form-state";
 import { runForm } from "@/lib/actions/run-form";
-import { declineFormInput } from "@/lib/contracts/plans";
+import { declineFormInput, newStampRequestFormInput } from "@/lib/contracts/plans";
 import { stampFormInput } from "@/lib/contracts/stamps";
 import { formText } from "@/lib/contracts/form-input";
-import { acceptStampRequest, declineNewStampRequest, declineStampRequest, fulfilNewStampRequest } from "@/lib/data/requests";
+import { acceptStampRequest, createNewStampRequest, declineNewStampRequest, declineStampRequest, fulfilNewStampRequest } from "@/lib/data/requests";
 import { requirePermission } from "@/lib/session";
 import { z } from "@/lib/zod";
-import { acceptRequestSchema, declineRequestSchema, fulfilNewStampRequestSchema } from "@/lib/validation/plans";
+import { acceptRequestSchema, createNewStampRequestSchema, declineRequestSchema, fulfilNewStampRequestSchema } from "@/lib/validation/plans";
 
 const id = z.uuid("validation.notFound");
 const acceptSchema = acceptRequestSchema.extend({ id });
@@ -80,4 +80,23 @@ export async function fulfilNewStampAction(_prev: FormState, formData: FormData)
   // The stamp's fields arrive as stamp.<name>; the form names them without the prefix.
   const fieldErrors = state.fieldErrors ? Object.fromEntries(Object.entries(state.fieldErrors).map(([k, v]) => [k.replace(/^stamp\./, ""), v])) : undefined;
   return { ...state, fieldErrors };
+}
+
+/**
+ * A new-stamp request, from the planner's fit helper ("make a stamp W wide") or from a motif (its role in the set):
+ * one action for both forms; the motif's form thanks in the archive's words, the planner's in its own.
+ */
+export async function requestNewStampAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  return runForm(
+    formData,
+    createNewStampRequestSchema,
+    async (input) => {
+      const actor = await requirePermission("stamps:requestNew");
+      await createNewStampRequest(actor, input);
+      revalidatePath("/stamps/requests");
+      const message = input.motifId ? (await getTranslations("requests"))("ask.sent") : (await getTranslations("plans.newStamp"))("sent");
+      return { status: "success", message };
+    },
+    newStampRequestFormInput,
+  );
 }

@@ -8,7 +8,7 @@ import { getMotif } from "@/lib/data/motifs";
 import { AppError } from "@/lib/errors";
 import { can } from "@/lib/permissions";
 import { requirePageActor } from "@/lib/session";
-import { requestNewStampAction } from "../../actions";
+import { requestNewStampAction } from "../../../stamps/requests/actions";
 
 export async function generateMetadata(): Promise<Metadata> {
   return { title: (await getTranslations("requests"))("ask.title") };
@@ -29,7 +29,7 @@ export default async function RequestStampPage({ params }: { params: Promise<{ i
     <>
       <PageHeader title={`${t("requests.ask.title")} · ${found.name}`} intro={t("requests.ask.intro")} />
       <Panel>
-        <NewStampRequestForm action={requestNewStampAction} motifId={id} backTo={`/motifs/${id}`} />
+        <NewStampRequestForm action={requestNewStampAction} motifId={id} backTo={`/motifs/${id}`} unitSystem={actor.unitSystem} />
       </Panel>
     </>
   );

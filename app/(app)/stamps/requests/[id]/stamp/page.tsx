@@ -2,15 +2,13 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { getTranslations } from "next-intl/server";
 import { Forbidden } from "@/components/shell/forbidden";
-import { StampForm } from "@/components/stamps/stamp-form";
 import { Notice } from "@/components/ui/notice";
-import { PageHeader, Panel } from "@/components/ui/panel";
+import { PageHeader } from "@/components/ui/panel";
 import { getNewStampRequest } from "@/lib/data/requests";
-import { listLocations } from "@/lib/data/stamps/locations";
 import { AppError } from "@/lib/errors";
 import { can } from "@/lib/permissions";
 import { requirePageActor } from "@/lib/session";
-import { locationLabel } from "@/lib/stamps/format";
+import { NewStampPanel } from "../../../new/new-stamp-panel";
 import { fulfilNewStampAction } from "../../actions";
 
 export async function generateMetadata(): Promise<Metadata> {
@@ -27,7 +25,7 @@ export default async function MakeStampPage({ params }: { params: Promise<{ id: 
     if (error instanceof AppError && error.code === "notFound") notFound();
     throw error;
   });
-  const [t, locations] = await Promise.all([getTranslations(), listLocations(actor)]);
+  const t = await getTranslations();
   const intro = request.motif
     ? t("requests.make.introMotif", { motif: request.motif.name, role: request.role ? t(`motifs.roles.${request.role}`) : t("motifs.roles.filler") })
     : t("requests.make.intro");
@@ -37,36 +35,13 @@ export default async function MakeStampPage({ params }: { params: Promise<{ id: 
       {request.state !== "open" ? (
         <Notice tone="error">{t("errors.requestAnswered", { state: t(`requests.newStates.${request.state}`) })}</Notice>
       ) : (
-        <Panel>
-          <StampForm
-            action={fulfilNewStampAction}
-            mode="create"
-            unitSystem={actor.unitSystem}
-            locations={locations.map((l) => ({ id: l.id, label: locationLabel(l) }))}
-            hidden={{ requestId: request.id, requestVersion: String(request.version) }}
-            cancelTo="/stamps/requests"
-            initial={{
-              code: "",
-              name: request.motif ? request.motif.name : "",
-              widthMm: request.widthMm,
-              heightMm: request.heightMm,
-              stripDepthMm: null,
-              weightG: null,
-              face: "single",
-              mirrored: false,
-              twinCode: null,
-              maker: null,
-              madeOn: null,
-              condition: "sound",
-              locationId: null,
-              coverageRatio: null,
-              outlinePath: null,
-              impressionsCount: 0,
-              notes: request.note,
-              tags: [],
-            }}
-          />
-        </Panel>
+        <NewStampPanel
+          actor={actor}
+          action={fulfilNewStampAction}
+          hidden={{ requestId: request.id, requestVersion: String(request.version) }}
+          cancelTo="/stamps/requests"
+          prefill={{ name: request.motif ? request.motif.name : "", widthMm: request.widthMm, heightMm: request.heightMm, notes: request.note }}
+        />
       )}
     </>
   );
