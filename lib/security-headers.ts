@@ -28,6 +28,8 @@ export function contentSecurityPolicy(nonce: string, config: SecurityConfig): st
   const directives = [
     "default-src 'self'",
     `script-src 'self' 'nonce-${nonce}' 'strict-dynamic'${config.dev ? " 'unsafe-eval'" : ""}`,
+    // The planner's layout worker: a worker script carries no nonce, and 'strict-dynamic' ignores 'self' above.
+    "worker-src 'self'",
     // Dev only: the dev overlay injects style elements without the nonce (and a nonce would disable unsafe-inline).
     `style-src 'self' ${config.dev ? "'unsafe-inline'" : `'nonce-${nonce}'`}`,
     "img-src 'self' blob: data:",

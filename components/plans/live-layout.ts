@@ -7,6 +7,7 @@ import { parseInput } from "@/lib/validation/parse";
 
 // The planner's numbers, computed in the browser with the same engine and the same request schema as
 // POST /api/v1/layout (measured faster than the round trip: see scripts/bench-planner.ts), and its picture window.
+// The page runs computeLive in a Web Worker (layout-worker.ts, use-live-layout.ts), so it never blocks typing.
 
 export interface LiveIssue {
   /** The plan input's path ("layout.cloth.widthMm", "borders.0.gapYMm"). */
@@ -39,7 +40,6 @@ export function computeLive(input: { layout: Record<string, unknown>; borders: u
     // the page's Content-Security-Policy refuses.
     const result = layoutOf(spec, { polygons: clipperLibBackend });
     const engineMs = performance.now() - started;
-    performance.measure("capgrid:plan-engine", { start: started, end: started + engineMs });
     return { ok: true, spec, result, engineMs };
   } catch (error) {
     if (!(error instanceof LayoutInputError)) throw error;

@@ -15,6 +15,10 @@ describe("the Content-Security-Policy", () => {
     expect(contentSecurityPolicy("abc123", { ...local, dev: true })).toContain("'unsafe-eval'");
   });
 
+  it("lets the page start workers from its own origin only (the planner's layout worker)", () => {
+    expect(contentSecurityPolicy("n", local)).toContain("worker-src 'self';");
+  });
+
   it("lets pages reach the object store for presigned uploads, and nothing else outside", () => {
     expect(contentSecurityPolicy("n", deployed)).toContain("connect-src 'self' https://capgrid-scans.s3.eu-west-1.amazonaws.com;");
   });

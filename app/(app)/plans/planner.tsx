@@ -5,10 +5,10 @@ import { useLocale, useTranslations } from "next-intl";
 import { startTransition, useActionState, useEffect, useMemo, useRef, useState } from "react";
 import { SWRConfig } from "swr";
 import { FitHelper } from "@/components/plans/fit-helper";
-import { computeLive, type LiveOutcome } from "@/components/plans/live-layout";
 import { PictureViewport } from "@/components/plans/picture-viewport";
 import { PlanNumbers } from "@/components/plans/plan-numbers";
 import { StampPicker } from "@/components/plans/stamp-picker";
+import { useLiveLayout } from "@/components/plans/use-live-layout";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
@@ -20,9 +20,6 @@ import type { UnitSystem } from "@/lib/stamps/format";
 import { usePlannerStamp } from "@/lib/swr/use-planner-stamp";
 import { NewStampRequestDialog } from "./new-stamp-request";
 import { savePlanAction } from "./actions";
-
-/** The pause after the last keystroke before the numbers are computed again (the engine itself takes 2–35 ms). */
-const DEBOUNCE_MS = 120;
 
 export interface ClothPreset {
   name: string;
@@ -71,7 +68,7 @@ function formDataOf(values: PlannerValues): FormData {
 
 /**
  * The planner's workbench: the form on one side, the live picture, numbers and fit helper on the other. Every
- * change lays the plan out again in the browser (the engine of lib/layout, debounced), so the numbers and the
+ * change lays the plan out again in the browser (the engine of lib/layout, in a Web Worker: see use-live-layout.ts), so the numbers and the
  * picture follow the typing; Save sends the same form to the server, which computes the summary it keeps.
  */
 export function Planner({ mode, plan, initialValues, presets, impressionsPerHour, unitSystem, canRequestNew }: PlannerProps) {
@@ -119,14 +116,7 @@ export function Planner({ mode, plan, initialValues, presets, impressionsPerHour
   }, [fieldStamp.data, borderStamp.data]);
   const key = JSON.stringify([input, [...geometry.keys()]]);
 
-  const [outcome, setOutcome] = useState<(LiveOutcome & { seq: number }) | null>(null);
-  const seq = useRef(0);
-  useEffect(() => {
-    if (waiting) return;
-    const timer = setTimeout(() => setOutcome({ ...computeLive(input, geometry), seq: ++seq.current }), outcome ? DEBOUNCE_MS : 0);
-    return () => clearTimeout(timer);
-    // eslint-disable-next-line react-hooks/exhaustive-deps -- the key covers the input and the stamps it needs
-  }, [key, waiting]);
+  const outcome = useLiveLayout(input, geometry, key, Boolean(waiting));
 
   // How long a change took to reach the screen (scripts/bench-planner.ts reads these measures).
   useEffect(() => {
