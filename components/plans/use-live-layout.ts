@@ -20,6 +20,7 @@ export function useLiveLayout(input: Input, geometry: ReadonlyMap<string, StampS
   const worker = useRef<Worker | null | undefined>(undefined);
   const busy = useRef(false);
   const pending = useRef<LiveRequest | null>(null);
+  const last = useRef<LiveRequest | null>(null);
   const latest = useRef(0);
   const seq = useRef(0);
 
@@ -41,9 +42,13 @@ export function useLiveLayout(input: Input, geometry: ReadonlyMap<string, StampS
         } else if (e.data.id === latest.current) show(e.data.outcome);
       };
       w.onerror = () => {
-        // The worker could not run (a blocked script, an old browser): lay out on the page from now on.
+        // The worker could not run (a blocked script, an old browser): lay out on the page from now on, starting
+        // with the newest input, which would otherwise wait for an answer that never comes.
         worker.current = null;
         busy.current = false;
+        const request = pending.current ?? last.current;
+        pending.current = null;
+        if (request) show(computeLive(request.input, new Map(request.geometry)));
       };
       worker.current = w;
     } catch {
@@ -58,6 +63,7 @@ export function useLiveLayout(input: Input, geometry: ReadonlyMap<string, StampS
   useEffect(() => {
     if (waiting) return;
     const request: LiveRequest = { id: ++latest.current, input, geometry: [...geometry.entries()] };
+    last.current = request;
     const w = worker.current;
     if (w) {
       if (busy.current) pending.current = request;
