@@ -194,6 +194,9 @@ export const runUrls = {
   progress: (id: string, stageId: string) => `/api/v1/runs/${encodeURIComponent(id)}/stages/${encodeURIComponent(stageId)}/progress`,
   readings: (id: string, stageId: string) => `/api/v1/runs/${encodeURIComponent(id)}/stages/${encodeURIComponent(stageId)}/readings`,
   findings: (id: string) => `/api/v1/runs/${encodeURIComponent(id)}/findings`,
+  /** A finding's photo (PUT the image as the body; GET it, or `thumb`). */
+  findingPhoto: (id: string, findingId: string, variant: "original" | "thumb" = "original") =>
+    `/api/v1/runs/${encodeURIComponent(id)}/findings/${encodeURIComponent(findingId)}/photo${variant === "thumb" ? "?variant=thumb" : ""}`,
   flaggedStamps: () => "/api/v1/runs/flagged-stamps",
 };
 
