@@ -1,16 +1,20 @@
 "use client";
 
-import { usePathname, useSearchParams } from "next/navigation";
-import { useEffect, useState } from "react";
+import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { useEffect, useState, useTransition } from "react";
 
 /**
  * State kept in the address (filters, sort, page), so a link or a reload shows the same view. Changes
- * go through the History API, which updates useSearchParams without asking the server to render again.
+ * go through the History API, which updates useSearchParams without asking the server to render again;
+ * with `{ server: true }` (a page the server draws from its address, like the shelf's pictures) they replace
+ * the address through the router instead, so the server draws the page again (`pending` while it does).
  */
-export function useUrlParams() {
+export function useUrlParams(options: { server?: boolean } = {}) {
   const pathname = usePathname();
   const params = useSearchParams();
-  const go = (url: string) => window.history.replaceState(null, "", url);
+  const router = useRouter();
+  const [pending, startTransition] = useTransition();
+  const go = (url: string) => (options.server ? startTransition(() => router.replace(url, { scroll: false })) : window.history.replaceState(null, "", url));
   /** Sets or clears (null, "") the named params; a change of filter goes back to the first page. */
   const set = (changes: Record<string, string | null>, resetPage = true) => {
     const next = new URLSearchParams(params.toString());
@@ -22,7 +26,7 @@ export function useUrlParams() {
     const qs = next.toString();
     go(qs ? `${pathname}?${qs}` : pathname);
   };
-  return { params, set, clear: () => go(pathname) };
+  return { params, set, clear: () => go(pathname), pending };
 }
 
 /** A text box bound to a URL param that updates the address a moment after typing stops. */
