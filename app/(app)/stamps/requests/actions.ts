@@ -86,10 +86,13 @@ export async function fulfilNewStampAction(_prev: FormState, formData: FormData)
   return { ...state, fieldErrors };
 }
 
-/** The form's optional "sketch" file: its bytes and name, or nothing when no file was chosen. */
+/**
+ * The form's optional "sketch" file: its bytes and name, or nothing when no file was chosen (a browser sends an
+ * empty part for an empty file box, so an empty file counts as none).
+ */
 async function sketchOf(formData: FormData) {
   const file = formData.get("sketch");
-  if (!file || typeof file === "string" || (file.size === 0 && file.name === "")) return undefined;
+  if (!file || typeof file === "string" || file.size === 0) return undefined;
   return { bytes: new Uint8Array(await file.arrayBuffer()), fileName: file.name || undefined };
 }
 
