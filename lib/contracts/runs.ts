@@ -63,13 +63,34 @@ export interface RunListDto {
   pageSize: number;
 }
 
-/** A stamp a waxing stage needs, whether it is free now (not out, not in repair, not retired). */
+/** Why a stamp is not free on a stage's planned days: its condition, out (due back `untilOn`), or asked for by someone else. */
+export interface RunStageStampBusyDto {
+  reason: "condition" | "out" | "requested";
+  condition: string | null;
+  fromOn: string | null;
+  untilOn: string | null;
+  who: string | null;
+}
+
+/** A stamp request a stage sent to the keepers. */
+export interface RunStageStampRequestDto {
+  id: string;
+  state: "open" | "accepted" | "checked_out" | "declined";
+  fromOn: string;
+  untilOn: string;
+  codes: string[];
+}
+
+/** A stamp a waxing stage needs, whether it is free now (not out, not in repair, not retired) and on the stage's days. */
 export interface RunStageStampDto {
   id: string;
   code: string;
   name: string;
   face: Face;
   available: boolean;
+  /** Free on the stage's planned days (today when it has none): see `busy` for what stands in the way. */
+  freeOnDays: boolean;
+  busy: RunStageStampBusyDto[];
   /** Flagged by the quality findings rule (3 of one kind within 30 days). */
   flagged: boolean;
 }
@@ -137,6 +158,8 @@ export interface RunStageDto {
   dyeMethod: DyeMethod | null;
   notes: string | null;
   stamps: RunStageStampDto[];
+  /** The stamp requests this stage sent to the keepers, newest first. */
+  stampRequests: RunStageStampRequestDto[];
   /** As estimated when the stage was last saved: wax (gross, kg; by material id), impressions, stamper hours. */
   estimate: { kg: number; impressions: number; hours: number; gramsPerMetre: number | null; rateGPerM2: number | null; byMaterial: { material: string; kg: number }[] };
   done: { metres: number; pieces: number; impressions: number; waxUsedG: number; recoveredG: number };
@@ -194,6 +217,8 @@ export const runUrls = {
   progress: (id: string, stageId: string) => `/api/v1/runs/${encodeURIComponent(id)}/stages/${encodeURIComponent(stageId)}/progress`,
   readings: (id: string, stageId: string) => `/api/v1/runs/${encodeURIComponent(id)}/stages/${encodeURIComponent(stageId)}/readings`,
   findings: (id: string) => `/api/v1/runs/${encodeURIComponent(id)}/findings`,
+  /** POST: ask the keepers for the stamps of a waxing stage, for its planned days. */
+  stageStampRequest: (id: string, stageId: string) => `/api/v1/runs/${encodeURIComponent(id)}/stages/${encodeURIComponent(stageId)}/stamp-request`,
   /** A finding's photo (PUT the image as the body; GET it, or `thumb`). */
   findingPhoto: (id: string, findingId: string, variant: "original" | "thumb" = "original") =>
     `/api/v1/runs/${encodeURIComponent(id)}/findings/${encodeURIComponent(findingId)}/photo${variant === "thumb" ? "?variant=thumb" : ""}`,
@@ -228,6 +253,7 @@ export function runFormInput(form: FormData, locale: string): Partial<Record<key
     pieces: num(form, "pieces", locale),
     pieceLengthMm: pieceLengthCm === undefined ? undefined : pieceLengthCm * 10,
     dueOn: formOptional(form, "dueOn") ?? null,
+    startOn: formOptional(form, "startOn") ?? null,
     planIds: plan ? [plan] : undefined,
     recipeId: formOptional(form, "recipeId"),
     notes: formOptional(form, "notes"),
@@ -268,6 +294,63 @@ export function findingFormInput(form: FormData, locale: string): Partial<Record
     stampCode: formOptional(form, "stampCode")?.toUpperCase(),
     repair: formOptional(form, "repair"),
     repairNote: formOptional(form, "repairNote"),
+  };
+}
+
+/** A stage as the update's `stages` list takes it back: what the stage holds now, kept by its id. */
+export function stageInputOf(s: RunStageDto) {
+  return {
+    id: s.id,
+    kind: s.kind,
+    colourPosition: s.colourPosition,
+    colourName: s.colourName,
+    swatch: s.swatch,
+    plannedStartOn: s.plannedStartOn,
+    plannedEndOn: s.plannedEndOn,
+    waxMethod: s.kind === "wax" ? s.waxMethod : null,
+    planId: s.kind === "wax" ? (s.plan?.id ?? null) : null,
+    recipeId: s.kind === "wax" ? (s.recipe?.id ?? null) : null,
+    faces: s.kind === "wax" ? s.faces : null,
+    passes: s.passes,
+    stamps: s.kind === "wax" ? s.stamps.map((x) => ({ code: x.code, face: x.face })) : [],
+    dyeMethod: s.kind === "dye" ? s.dyeMethod : null,
+    notes: s.notes,
+  };
+}
+
+/**
+ * The stage edit form → the update's whole stage list: the stage edited from the form (days, plan, recipe, faces,
+ * passes, method, stamp codes one per line or comma, notes), every other stage as it is.
+ */
+export function stageFormInput(form: FormData, locale: string, run: Pick<RunDto, "version" | "stages">, stageId: string) {
+  return {
+    version: run.version,
+    stages: run.stages.map((s) => {
+      const kept = stageInputOf(s);
+      if (s.id !== stageId) return kept;
+      const edited: Record<string, unknown> = {
+        ...kept,
+        plannedStartOn: formOptional(form, "plannedStartOn") ?? null,
+        plannedEndOn: formOptional(form, "plannedEndOn") ?? null,
+        passes: num(form, "passes", locale),
+        notes: formOptional(form, "notes") ?? null,
+      };
+      if (s.kind === "wax") {
+        const face = formText(form, "faces") || kept.faces || "front";
+        edited.waxMethod = formText(form, "waxMethod") || kept.waxMethod;
+        edited.planId = formOptional(form, "planId") ?? null;
+        edited.recipeId = formOptional(form, "recipeId") ?? null;
+        edited.faces = face;
+        const codes = formText(form, "stampCodes")
+          .split(/[\s,;]+/)
+          .map((c) => c.trim().toUpperCase())
+          .filter(Boolean);
+        const faceOf = new Map(s.stamps.map((x) => [x.code, x.face]));
+        edited.stamps = [...new Set(codes)].map((code) => ({ code, face: faceOf.get(code) ?? (face === "both" ? "both" : face) }));
+      }
+      if (s.kind === "dye") edited.dyeMethod = formText(form, "dyeMethod") || kept.dyeMethod;
+      return edited;
+    }),
   };
 }
 

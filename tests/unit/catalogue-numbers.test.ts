@@ -22,6 +22,8 @@ const textArguments = new Set([
   "date", "face", "fields", "file", "uses",
   // production runs: the stage numbers a refusal lists ("2, 4")
   "stages",
+  // production runs' screens: masses written by the unit helpers, a stage's label
+  "estimated", "used", "wax", "label",
   "amount", "cloth", "currency", "day", "density", "flash", "grams", "level", "limit", "metres", "onHand", "price", "rate", "recipe", "se",
 ]);
 
