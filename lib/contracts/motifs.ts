@@ -168,15 +168,23 @@ export function motifFormInput(form: FormData): Record<string, unknown> {
 
 const FACES = new Set<string>(clothFaceValues);
 
-type ColourInput = { name: string; swatch: string; waxStamps: string[]; face: ClothFace };
+type ColourInput = { name: string; swatch: string; waxStamps: string[]; face: ClothFace; dyeNotes?: string };
 
 /** One colour as written: "Colour #rrggbb [CODE CODE face]"; what does not read as one keeps its text as the name and no swatch. */
-function parseColour(c: string): ColourInput {
+/** Dye notes follow " // " on a colour's line (and a colourway's notes on its name line). */
+const NOTES = " // ";
+const splitNotes = (line: string): [string, string | undefined] => {
+  const at = line.indexOf(NOTES.trim());
+  return at < 0 ? [line, undefined] : [line.slice(0, at).trim(), line.slice(at + NOTES.trim().length).trim() || undefined];
+};
+
+function parseColour(line: string): ColourInput {
+  const [c, dyeNotes] = splitNotes(line);
   const m = /^(.*?)\s*(#[0-9a-fA-F]{6})\s*(?:\[([^\]]*)\])?$/.exec(c);
-  if (!m) return { name: c, swatch: "", waxStamps: [], face: "front" };
+  if (!m) return { name: c, swatch: "", waxStamps: [], face: "front", dyeNotes };
   const words = (m[3] ?? "").split(/[\s,]+/).filter(Boolean);
   const face = (words.find((w) => FACES.has(w.toLowerCase()))?.toLowerCase() ?? "front") as ClothFace;
-  return { name: m[1].trim(), swatch: m[2].toLowerCase(), waxStamps: words.filter((w) => !FACES.has(w.toLowerCase())), face };
+  return { name: m[1].trim(), swatch: m[2].toLowerCase(), waxStamps: words.filter((w) => !FACES.has(w.toLowerCase())), face, dyeNotes };
 }
 
 /**
@@ -189,18 +197,24 @@ function parseColour(c: string): ColourInput {
  * A line with a colon starts a colourway; colours written after the colon on the same line, separated by ";",
  * belong to it too (the older one-line form, "Name: Colour #rrggbb [CODE face]; Colour #rrggbb"). A colour line
  * before any name starts a colourway without one, so the schema names what is missing. What does not read as a
- * colour keeps its text as the name and an empty swatch, so the schema names the line's problem.
+ * colour keeps its text as the name and an empty swatch, so the schema names the line's problem. Notes follow " // ":
+ * a colour's dye notes on its line ("Soga brown #8a5a2b // two baths, fix with lime"), a colourway's on its name line.
  */
-export function parseColourways(text: string): Array<{ name: string; colours: ColourInput[] }> {
-  const ways: Array<{ name: string; colours: ColourInput[] }> = [];
+export function parseColourways(text: string): Array<{ name: string; notes?: string; colours: ColourInput[] }> {
+  const ways: Array<{ name: string; notes?: string; colours: ColourInput[] }> = [];
   for (const raw of text.split(/\r?\n/)) {
     const line = raw.trim().replace(/^[-•*]\s+/, "");
     if (!line) continue;
     const colon = line.indexOf(":");
     if (colon >= 0) {
-      const rest = line.slice(colon + 1);
+      const after = line.slice(colon + 1).trim();
+      // "Name: // notes" carries the colourway's notes; otherwise colours may follow on the line (the older form).
+      const hasNotes = after.startsWith(NOTES.trim());
+      const notes = hasNotes ? after.slice(NOTES.trim().length).trim() || undefined : undefined;
+      const rest = hasNotes ? "" : after;
       ways.push({
         name: line.slice(0, colon).trim(),
+        notes,
         colours: rest
           .split(";")
           .map((c) => c.trim())
@@ -218,7 +232,12 @@ export function parseColourways(text: string): Array<{ name: string; colours: Co
 /** Colourways back as the form's lines, one colour a line under its colourway (parseColourways reads them again unchanged). */
 export function colourwaysText(colourways: ColourwayDto[]): string {
   return colourways
-    .map((w) => [`${w.name}:`, ...w.colours.map((c) => `${c.name} ${c.swatch}${c.waxStamps.length || c.face !== "front" ? ` [${[...c.waxStamps, c.face].join(" ")}]` : ""}`)].join("\n"))
+    .map((w) =>
+      [
+        `${w.name}:${w.notes ? `${NOTES}${w.notes}` : ""}`,
+        ...w.colours.map((c) => `${c.name} ${c.swatch}${c.waxStamps.length || c.face !== "front" ? ` [${[...c.waxStamps, c.face].join(" ")}]` : ""}${c.dyeNotes ? `${NOTES}${c.dyeNotes}` : ""}`),
+      ].join("\n"),
+    )
     .join("\n\n");
 }
 

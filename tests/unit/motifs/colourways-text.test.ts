@@ -59,4 +59,21 @@ describe("colourways as text lines", () => {
     expect(text).toBe(["Brown and indigo:", "Undyed mori #f4efe6 [CP-0001 both]", "Indigo #1f3a5f", "", "Two blues:", "Sky blue #6f9fc8 [back]"].join("\n"));
     expect(parseColourways(text)).toEqual(colourways.map((w) => ({ name: w.name, colours: w.colours.map(({ name, swatch, waxStamps, face }) => ({ name, swatch, waxStamps, face })) })));
   });
+
+  it("carries a colour's dye notes and a colourway's notes after // both ways, so editing the form keeps them", () => {
+    const text = ["Market soga: // the dry-season order", "Cream #f4efe6 [CP-0001 front] // undyed mori", "Soga brown #8a5a2b // two baths, fixed with lime"].join("\n");
+    const ways = parseColourways(text);
+    expect(ways).toEqual([
+      {
+        name: "Market soga",
+        notes: "the dry-season order",
+        colours: [
+          { name: "Cream", swatch: "#f4efe6", waxStamps: ["CP-0001"], face: "front", dyeNotes: "undyed mori" },
+          { name: "Soga brown", swatch: "#8a5a2b", waxStamps: [], face: "front", dyeNotes: "two baths, fixed with lime" },
+        ],
+      },
+    ]);
+    const dto: ColourwayDto[] = [{ id: "x", name: "Market soga", notes: "the dry-season order", colours: ways[0].colours.map((c) => ({ ...c, dyeNotes: c.dyeNotes ?? null })) as ColourwayDto["colours"] }];
+    expect(parseColourways(colourwaysText(dto))).toEqual(ways);
+  });
 });
