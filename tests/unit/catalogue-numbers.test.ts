@@ -23,7 +23,7 @@ const textArguments = new Set([
   // production runs: the stage numbers a refusal lists ("2, 4")
   "stages",
   // production runs' screens: masses written by the unit helpers, a stage's label
-  "estimated", "used", "wax", "label",
+  "estimated", "used", "wax", "label", "runs",
   "amount", "cloth", "currency", "day", "density", "flash", "grams", "level", "limit", "metres", "onHand", "price", "rate", "recipe", "se",
 ]);
 
