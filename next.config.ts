@@ -10,6 +10,9 @@ const nextConfig: NextConfig = {
   // In the browser its ES build is bundled (the .wasm becomes an asset); its Node-only branch imports "module".
   turbopack: { resolveAlias: { module: { browser: "./lib/layout/polygon/browser-module-stub.ts" } } },
   poweredByHeader: false,
+  // A quality finding's photo travels with its form (lib/actions/run-records.ts): above Next's 1 MB default, as
+  // phones take them; the form refuses a larger file beside its field (FINDING_PHOTO_MAX_BYTES).
+  experimental: { serverActions: { bodySizeLimit: "8mb" } },
   typedRoutes: false,
   // The test run builds into its own folder so it never disturbs a running `npm start`.
   distDir: process.env.NEXT_DIST_DIR || ".next",
