@@ -55,6 +55,8 @@ export const errorStatus = {
   runStageHasRecords: 409,
   runHasRecords: 409,
   runClosed: 409,
+  stageHasNoStamps: 409,
+  stageStampsRequested: 409,
   planInRuns: 409,
   stampInRuns: 409,
   internal: 500,

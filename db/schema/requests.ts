@@ -2,6 +2,7 @@ import { sql } from "drizzle-orm";
 import { check, date, doublePrecision, index, integer, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { motifs, motifStampRoleEnum } from "./motifs";
 import { plans } from "./plans";
+import { runStages } from "./runs";
 import { checkouts, stamps } from "./stamps";
 import { users } from "./users";
 
@@ -21,6 +22,8 @@ export const stampRequests = pgTable(
   {
     id: uuid("id").primaryKey().defaultRandom(),
     planId: uuid("plan_id").references(() => plans.id, { onDelete: "set null" }),
+    /** The production run's waxing stage the stamps are asked for (one click on the run page), or null. */
+    runStageId: uuid("run_stage_id").references(() => runStages.id, { onDelete: "set null" }),
     requestedBy: uuid("requested_by").references(() => users.id, { onDelete: "set null" }),
     /** Kept beside requested_by so the queue still names people whose account is gone. */
     requesterName: text("requester_name").notNull(),
@@ -47,6 +50,7 @@ export const stampRequests = pgTable(
   (t) => [
     index("stamp_requests_state_idx").on(t.state, t.fromOn),
     index("stamp_requests_plan_idx").on(t.planId),
+    index("stamp_requests_run_stage_idx").on(t.runStageId),
     check("stamp_requests_dates", sql`${t.untilOn} >= ${t.fromOn}`),
     check("stamp_requests_declined_reason", sql`${t.state} <> 'declined' OR ${t.declineReason} IS NOT NULL`),
   ],

@@ -63,13 +63,34 @@ export interface RunListDto {
   pageSize: number;
 }
 
-/** A stamp a waxing stage needs, whether it is free now (not out, not in repair, not retired). */
+/** Why a stamp is not free on a stage's planned days: its condition, out (due back `untilOn`), or asked for by someone else. */
+export interface RunStageStampBusyDto {
+  reason: "condition" | "out" | "requested";
+  condition: string | null;
+  fromOn: string | null;
+  untilOn: string | null;
+  who: string | null;
+}
+
+/** A stamp request a stage sent to the keepers. */
+export interface RunStageStampRequestDto {
+  id: string;
+  state: "open" | "accepted" | "checked_out" | "declined";
+  fromOn: string;
+  untilOn: string;
+  codes: string[];
+}
+
+/** A stamp a waxing stage needs, whether it is free now (not out, not in repair, not retired) and on the stage's days. */
 export interface RunStageStampDto {
   id: string;
   code: string;
   name: string;
   face: Face;
   available: boolean;
+  /** Free on the stage's planned days (today when it has none): see `busy` for what stands in the way. */
+  freeOnDays: boolean;
+  busy: RunStageStampBusyDto[];
   /** Flagged by the quality findings rule (3 of one kind within 30 days). */
   flagged: boolean;
 }
@@ -137,6 +158,8 @@ export interface RunStageDto {
   dyeMethod: DyeMethod | null;
   notes: string | null;
   stamps: RunStageStampDto[];
+  /** The stamp requests this stage sent to the keepers, newest first. */
+  stampRequests: RunStageStampRequestDto[];
   /** As estimated when the stage was last saved: wax (gross, kg; by material id), impressions, stamper hours. */
   estimate: { kg: number; impressions: number; hours: number; gramsPerMetre: number | null; rateGPerM2: number | null; byMaterial: { material: string; kg: number }[] };
   done: { metres: number; pieces: number; impressions: number; waxUsedG: number; recoveredG: number };
@@ -194,6 +217,8 @@ export const runUrls = {
   progress: (id: string, stageId: string) => `/api/v1/runs/${encodeURIComponent(id)}/stages/${encodeURIComponent(stageId)}/progress`,
   readings: (id: string, stageId: string) => `/api/v1/runs/${encodeURIComponent(id)}/stages/${encodeURIComponent(stageId)}/readings`,
   findings: (id: string) => `/api/v1/runs/${encodeURIComponent(id)}/findings`,
+  /** POST: ask the keepers for the stamps of a waxing stage, for its planned days. */
+  stageStampRequest: (id: string, stageId: string) => `/api/v1/runs/${encodeURIComponent(id)}/stages/${encodeURIComponent(stageId)}/stamp-request`,
   /** A finding's photo (PUT the image as the body; GET it, or `thumb`). */
   findingPhoto: (id: string, findingId: string, variant: "original" | "thumb" = "original") =>
     `/api/v1/runs/${encodeURIComponent(id)}/findings/${encodeURIComponent(findingId)}/photo${variant === "thumb" ? "?variant=thumb" : ""}`,
@@ -228,6 +253,7 @@ export function runFormInput(form: FormData, locale: string): Partial<Record<key
     pieces: num(form, "pieces", locale),
     pieceLengthMm: pieceLengthCm === undefined ? undefined : pieceLengthCm * 10,
     dueOn: formOptional(form, "dueOn") ?? null,
+    startOn: formOptional(form, "startOn") ?? null,
     planIds: plan ? [plan] : undefined,
     recipeId: formOptional(form, "recipeId"),
     notes: formOptional(form, "notes"),

@@ -9,3 +9,4 @@ export * from "./schema";
 export * from "./stages";
 export * from "./totals";
 export * from "./flags";
+export * from "./schedule";

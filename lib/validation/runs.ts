@@ -34,6 +34,8 @@ export const createRunSchema = z
     pieces: pieces.optional(),
     pieceLengthMm: pieceLengthMm.optional(),
     dueOn: isoDate.nullable().optional(),
+    /** The first day of work: stages without planned days get them one after the other from here. */
+    startOn: isoDate.nullable().optional(),
     planIds: z.array(uuid).max(RUN_PLANS_MAX, "validation.tooBig").optional(),
     recipeId: uuid.optional(),
     notes: optionalText(2000),
@@ -101,3 +103,7 @@ export type RecordReadingInput = z.output<typeof recordReadingSchema>;
 
 export const recordFindingSchema = findingInputSchema.and(z.object({ stageId: uuid.optional() }));
 export type RecordFindingInput = z.output<typeof recordFindingSchema>;
+
+/** POST …/stages/{stageId}/stamp-request: where the stamps go; the stamps and days come from the stage. */
+export const stageStampRequestSchema = z.strictObject({ workstation: requiredText(80), note: optionalText(1000) });
+export type StageStampRequestInput = z.output<typeof stageStampRequestSchema>;

@@ -26,6 +26,7 @@ import * as runsId from "./runs/[id]/route";
 import * as runsIdFindings from "./runs/[id]/findings/route";
 import * as runsIdStagesProgress from "./runs/[id]/stages/[stageId]/progress/route";
 import * as runsIdStagesReadings from "./runs/[id]/stages/[stageId]/readings/route";
+import * as runsIdStagesStampRequest from "./runs/[id]/stages/[stageId]/stamp-request/route";
 import * as settings from "./settings/route";
 import * as stampRequests from "./stamp-requests/route";
 import * as stampRequestsId from "./stamp-requests/[id]/route";
@@ -111,6 +112,7 @@ export const routeModules: RouteModule[] = [
   { path: "/api/v1/runs/{id}/findings", handlers: runsIdFindings },
   { path: "/api/v1/runs/{id}/stages/{stageId}/progress", handlers: runsIdStagesProgress },
   { path: "/api/v1/runs/{id}/stages/{stageId}/readings", handlers: runsIdStagesReadings },
+  { path: "/api/v1/runs/{id}/stages/{stageId}/stamp-request", handlers: runsIdStagesStampRequest },
   { path: "/api/v1/settings", handlers: settings },
   { path: "/api/v1/stamp-requests", handlers: stampRequests },
   { path: "/api/v1/stamp-requests/{id}", handlers: stampRequestsId },

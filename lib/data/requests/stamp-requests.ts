@@ -72,7 +72,7 @@ async function mailFacts(r: StampRequest): Promise<RequestMailFacts> {
 }
 
 /** Asks the keepers for stamps (any role may). The days must not lie in the past; every code must be a library stamp. */
-export async function createStampRequest(actor: Actor, input: CreateStampRequestInput): Promise<StampRequestDto> {
+export async function createStampRequest(actor: Actor, input: CreateStampRequestInput, from: { runStageId?: string } = {}): Promise<StampRequestDto> {
   assertCan(actor, "stamps:request");
   const today = await workshopToday();
   if (input.fromOn < today) throw new AppError("unprocessable", {}, { fromOn: [{ key: "validation.dateInPast", values: { today } }] });
@@ -89,6 +89,7 @@ export async function createStampRequest(actor: Actor, input: CreateStampRequest
       .insert(stampRequests)
       .values({
         planId: input.planId ?? null,
+        runStageId: from.runStageId ?? null,
         requestedBy: actor.id,
         requesterName: actor.name,
         requesterEmail: actor.email,

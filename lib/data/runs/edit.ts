@@ -5,7 +5,7 @@ import { motifColourways, motifColours, plans, runFindings, runPlans, runProgres
 import { assertCan, type Actor } from "@/lib/authz";
 import type { RunDto } from "@/lib/contracts/runs";
 import { AppError, type FieldMessage } from "@/lib/errors";
-import { defaultStages, stageNeed, type StageSpec } from "@/lib/runs";
+import { defaultStages, scheduleStages, stageNeed, type StageSpec } from "@/lib/runs";
 import type { CreateRunInput, UpdateRunInput } from "@/lib/validation/runs";
 import { estimateComponents } from "@/lib/wax";
 import { currentSettings } from "../settings";
@@ -101,7 +101,7 @@ async function stagesWithRecords(tx: Transaction, stageIds: string[]): Promise<S
 }
 
 /** Writes the run's stage list (kept stages by id, new ones inserted, unlisted ones without records deleted). */
-async function writeStages(tx: Transaction, actor: Actor, run: RunRow, specs: readonly StageWithId[]) {
+async function writeStages(tx: Transaction, actor: Actor, run: RunRow, specs: readonly StageWithId[], startOn?: string) {
   const existing = await tx.select().from(runStages).where(eq(runStages.runId, run.id));
   const byId = new Map(existing.map((s) => [s.id, s]));
   const recorded = await stagesWithRecords(tx, existing.map((s) => s.id));
@@ -120,8 +120,12 @@ async function writeStages(tx: Transaction, actor: Actor, run: RunRow, specs: re
   if (kept.size) await tx.update(runStages).set({ position: sql`${runStages.position} + 10000` }).where(inArray(runStages.id, [...kept]));
 
   const stampIds = await stampIdsOf(tx, specs);
+  const estimates: StageEstimate[] = [];
+  for (const [i, s] of specs.entries()) estimates.push(await estimateStage(tx, actor, run, s, `stages.${i}`));
+  // A new run's unplanned stages get days one after the other from its start, by their estimated hours.
+  const scheduled = startOn ? scheduleStages(specs.map((s, i) => ({ kind: s.kind, hours: estimates[i].hoursEstimated })), startOn) : null;
   for (const [i, s] of specs.entries()) {
-    const est = await estimateStage(tx, actor, run, s, `stages.${i}`);
+    const est = estimates[i];
     const values = {
       runId: run.id,
       position: i,
@@ -129,8 +133,8 @@ async function writeStages(tx: Transaction, actor: Actor, run: RunRow, specs: re
       colourPosition: s.colourPosition ?? null,
       colourName: s.colourName ?? null,
       swatch: s.swatch ?? null,
-      plannedStartOn: s.plannedStartOn ?? null,
-      plannedEndOn: s.plannedEndOn ?? null,
+      plannedStartOn: s.plannedStartOn ?? (s.plannedEndOn ? null : (scheduled?.[i].plannedStartOn ?? null)),
+      plannedEndOn: s.plannedEndOn ?? (s.plannedStartOn ? null : (scheduled?.[i].plannedEndOn ?? null)),
       waxMethod: s.kind === "wax" ? (s.waxMethod ?? "stamp") : null,
       planId: s.kind === "wax" ? (s.planId ?? null) : null,
       recipeId: s.kind === "wax" ? (s.recipeId ?? null) : null,
@@ -192,7 +196,7 @@ export async function createRun(actor: Actor, input: CreateRunInput): Promise<Ru
       .returning();
     await writePlans(tx, run.id, planIds);
     const stages = input.stages ?? (await defaultStagesFor(tx, input.motifId, input.colourwayId, planIds[0] ?? null, input.recipeId ?? null));
-    await writeStages(tx, actor, run, stages);
+    await writeStages(tx, actor, run, stages, input.startOn ?? undefined);
     await recordRunEvent(tx, run.id, actor, "created", 1);
     return run.id;
   });

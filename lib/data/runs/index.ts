@@ -4,3 +4,4 @@ import "server-only";
 export { listRuns, getRun } from "./list";
 export { createRun, updateRun, deleteRun } from "./edit";
 export { recordProgress, recordReading, recordFinding, listFindings, listFlaggedStamps, measuredRecovery } from "./records";
+export { requestStageStamps } from "./stamp-requests";

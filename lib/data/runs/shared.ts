@@ -25,6 +25,8 @@ import type { RunDto, RunFindingDto, RunStageDto, RunSummaryDto } from "@/lib/co
 import { AppError } from "@/lib/errors";
 import { currentStage, FLAG_WINDOW_DAYS, flaggedStamps, readingWarnings, runTotals, type FindingKind } from "@/lib/runs";
 import { todayIso } from "@/lib/dates";
+import { workshopToday } from "../settings";
+import { stampAvailability, stageStampRequests } from "./availability";
 
 export type Db = Transaction | typeof db;
 
@@ -147,6 +149,15 @@ export async function runDto(tx: Db, id: string): Promise<RunDto> {
     planIds.length ? tx.select({ id: plans.id, name: plans.name }).from(plans).where(inArray(plans.id, planIds)) : Promise.resolve([]),
     recipeIds.length ? tx.select({ id: waxRecipes.id, name: waxRecipes.name, workingMinC: waxRecipes.workingMinC, workingMaxC: waxRecipes.workingMaxC }).from(waxRecipes).where(inArray(waxRecipes.id, recipeIds)) : Promise.resolve([]),
   ]);
+  const today = await workshopToday();
+  const [onDays, sent] = await Promise.all([
+    stampAvailability(
+      tx,
+      stageRows.map((s) => ({ id: s.id, plannedStartOn: s.plannedStartOn, plannedEndOn: s.plannedEndOn, stampIds: stageStampRows.filter((x) => x.stageId === s.id).map((x) => x.id) })),
+      today,
+    ),
+    stageStampRequests(tx, stageIds),
+  ]);
   const stampIds = [...new Set(stageStampRows.map((s) => s.id))];
   const out = stampIds.length ? new Set((await tx.select({ stampId: checkouts.stampId }).from(checkouts).where(and(inArray(checkouts.stampId, stampIds), isNull(checkouts.returnedAt)))).map((c) => c.stampId)) : new Set<string>();
   const flagged = new Set(flags.map((f) => f.stampId));
@@ -176,7 +187,11 @@ export async function runDto(tx: Db, id: string): Promise<RunDto> {
       notes: s.notes,
       stamps: stageStampRows
         .filter((x) => x.stageId === s.id)
-        .map((x) => ({ id: x.id, code: x.code, name: x.name, face: x.face, available: !out.has(x.id) && !["needs_repair", "in_repair", "retired"].includes(x.condition), flagged: flagged.has(x.id) })),
+        .map((x) => {
+          const days = onDays.get(s.id)?.get(x.id) ?? { freeOnDays: true, busy: [] };
+          return { id: x.id, code: x.code, name: x.name, face: x.face, available: !out.has(x.id) && !["needs_repair", "in_repair", "retired"].includes(x.condition), ...days, flagged: flagged.has(x.id) };
+        }),
+      stampRequests: sent.get(s.id) ?? [],
       estimate: { kg: s.kgEstimated, impressions: s.impressionsEstimated, hours: s.hoursEstimated, gramsPerMetre: estimate.gramsPerMetre ?? null, rateGPerM2: estimate.rateGPerM2 ?? null, byMaterial: estimate.byMaterial ?? [] },
       done,
       progress: progress

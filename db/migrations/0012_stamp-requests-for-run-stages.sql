@@ -1,0 +1,3 @@
+ALTER TABLE "stamp_requests" ADD COLUMN "run_stage_id" uuid;--> statement-breakpoint
+ALTER TABLE "stamp_requests" ADD CONSTRAINT "stamp_requests_run_stage_id_run_stages_id_fk" FOREIGN KEY ("run_stage_id") REFERENCES "public"."run_stages"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+CREATE INDEX "stamp_requests_run_stage_idx" ON "stamp_requests" USING btree ("run_stage_id");
