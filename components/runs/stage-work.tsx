@@ -113,13 +113,24 @@ export function StageWork({ run, stage, can, unitSystem }: { run: RunDto; stage:
       ) : null}
 
       {closed ? <p className="text-sm text-stone-600">{t("closed")}</p> : null}
-      {progressForm ? (
+      {stage.state === "done" && (progressForm || readingForm) ? (
+        // A done stage keeps its forms for a late record, folded away: a record there puts the stage back in work.
+        <details className="rounded-md border border-stone-200 bg-stone-50 p-4">
+          <summary className="cursor-pointer text-sm font-semibold text-stone-900">{t("lateRecord")}</summary>
+          <p className="mt-2 text-sm text-stone-600">{t("lateRecordHint")}</p>
+          <div className="mt-3 space-y-4">
+            {progressForm ? <ProgressForm run={run} stage={stage} today={today} /> : null}
+            {readingForm ? <ReadingForm run={run} stage={stage} unitSystem={unitSystem} /> : null}
+          </div>
+        </details>
+      ) : null}
+      {stage.state !== "done" && progressForm ? (
         <div className="rounded-md border border-stone-200 bg-stone-50 p-4">
           <h4 className="mb-3 text-sm font-semibold text-stone-900">{t("progressFormTitle")}</h4>
           <ProgressForm run={run} stage={stage} today={today} />
         </div>
       ) : null}
-      {readingForm ? (
+      {stage.state !== "done" && readingForm ? (
         <div className="rounded-md border border-stone-200 bg-stone-50 p-4">
           <h4 className="mb-3 text-sm font-semibold text-stone-900">{t("readingFormTitle")}</h4>
           <ReadingForm run={run} stage={stage} unitSystem={unitSystem} />

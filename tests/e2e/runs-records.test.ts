@@ -198,6 +198,37 @@ describe("a waxing's day on the run page", () => {
   });
 });
 
+describe("a dye stage's day on the run page", () => {
+  it("a planner is refused pieces that are not whole beside the field, then records the metres dyed", async () => {
+    const run = await getRun();
+    const stage = run.stages.find((s) => s.kind === "dye" && s.state !== "done")!;
+    const planner = await createUser("planner", undefined, { name: `${prefix} planner` });
+    const page = await pageAs(planner);
+    await go(page, `/runs/${runId}`);
+    // A planner records dyeing and bleaching, not the wax.
+    expect(await page.getByRole("form", { name: /\(Waxing\)$/ }).count()).toBe(0);
+    const form = page.getByRole("form", { name: `Record work at stage ${stageNo(stage)} (Dyeing)` });
+    await form.getByLabel("Metres done").fill("30");
+    await form.getByLabel("Pieces done").fill("2.5");
+    await form.getByRole("button", { name: "Record work" }).click();
+    await expectMessageBeside(form.getByLabel("Pieces done"), /Enter a whole number/);
+    expect(await form.getByLabel("Metres done").inputValue()).toBe("30");
+
+    const note = `${prefix} first dip`;
+    await form.getByLabel("Pieces done").fill("");
+    await form.getByLabel("Note").fill(note);
+    await form.getByRole("button", { name: "Record work" }).click();
+    await form.getByText("Work recorded.").waitFor();
+    const row = page.getByTestId("progress-row").filter({ hasText: note });
+    await row.waitFor();
+    expect(await row.textContent()).toMatch(/30 m/);
+    const after = (await getRun()).stages.find((s) => s.id === stage.id)!;
+    expect(after.done.metres - stage.done.metres).toBe(30);
+    expect(after.state).toBe("underway");
+    await page.context().close();
+  });
+});
+
 describe("quality findings on the run page", () => {
   it("a keeper is refused beside the field (a count of 0, an unknown stamp), then records a finding that flags its stamp", async () => {
     const run = await getRun();
