@@ -297,5 +297,62 @@ export function findingFormInput(form: FormData, locale: string): Partial<Record
   };
 }
 
+/** A stage as the update's `stages` list takes it back: what the stage holds now, kept by its id. */
+export function stageInputOf(s: RunStageDto) {
+  return {
+    id: s.id,
+    kind: s.kind,
+    colourPosition: s.colourPosition,
+    colourName: s.colourName,
+    swatch: s.swatch,
+    plannedStartOn: s.plannedStartOn,
+    plannedEndOn: s.plannedEndOn,
+    waxMethod: s.kind === "wax" ? s.waxMethod : null,
+    planId: s.kind === "wax" ? (s.plan?.id ?? null) : null,
+    recipeId: s.kind === "wax" ? (s.recipe?.id ?? null) : null,
+    faces: s.kind === "wax" ? s.faces : null,
+    passes: s.passes,
+    stamps: s.kind === "wax" ? s.stamps.map((x) => ({ code: x.code, face: x.face })) : [],
+    dyeMethod: s.kind === "dye" ? s.dyeMethod : null,
+    notes: s.notes,
+  };
+}
+
+/**
+ * The stage edit form → the update's whole stage list: the stage edited from the form (days, plan, recipe, faces,
+ * passes, method, stamp codes one per line or comma, notes), every other stage as it is.
+ */
+export function stageFormInput(form: FormData, locale: string, run: Pick<RunDto, "version" | "stages">, stageId: string) {
+  return {
+    version: run.version,
+    stages: run.stages.map((s) => {
+      const kept = stageInputOf(s);
+      if (s.id !== stageId) return kept;
+      const edited: Record<string, unknown> = {
+        ...kept,
+        plannedStartOn: formOptional(form, "plannedStartOn") ?? null,
+        plannedEndOn: formOptional(form, "plannedEndOn") ?? null,
+        passes: num(form, "passes", locale),
+        notes: formOptional(form, "notes") ?? null,
+      };
+      if (s.kind === "wax") {
+        const face = formText(form, "faces") || kept.faces || "front";
+        edited.waxMethod = formText(form, "waxMethod") || kept.waxMethod;
+        edited.planId = formOptional(form, "planId") ?? null;
+        edited.recipeId = formOptional(form, "recipeId") ?? null;
+        edited.faces = face;
+        const codes = formText(form, "stampCodes")
+          .split(/[\s,;]+/)
+          .map((c) => c.trim().toUpperCase())
+          .filter(Boolean);
+        const faceOf = new Map(s.stamps.map((x) => [x.code, x.face]));
+        edited.stamps = [...new Set(codes)].map((code) => ({ code, face: faceOf.get(code) ?? (face === "both" ? "both" : face) }));
+      }
+      if (s.kind === "dye") edited.dyeMethod = formText(form, "dyeMethod") || kept.dyeMethod;
+      return edited;
+    }),
+  };
+}
+
 /** The edit form's top fields (the stage list is edited as JSON-able rows by the screen and sent as `stages`). */
 export type RunEditFields = Omit<UpdateRunInput, "stages">;

@@ -20,7 +20,7 @@ describe("an administrator", () => {
     const adminContext = await browser.newContext();
     const page = await adminContext.newPage();
     await signInThroughPage(page, admin.email, admin.password);
-    expect(await navLabels(page)).toEqual(["Overview", "Stamp shelf", "Cloth plans", "Wax room", "Motif archive", "People"]);
+    expect(await navLabels(page)).toEqual(["Overview", "Stamp shelf", "Cloth plans", "Wax room", "Motif archive", "Production runs", "People"]);
 
     await page.getByRole("link", { name: "People" }).click();
     await page.waitForURL(`${appUrl}/admin`);
@@ -56,7 +56,7 @@ describe("an administrator", () => {
     await page2.getByText("Your password is set.").waitFor();
 
     await signInThroughPage(page2, email, "wax and indigo 42");
-    expect(await navLabels(page2)).toEqual(["Overview", "Stamp shelf", "Cloth plans", "Wax room", "Motif archive"]);
+    expect(await navLabels(page2)).toEqual(["Overview", "Stamp shelf", "Cloth plans", "Wax room", "Motif archive", "Production runs"]);
     await page2.getByText("Stamp keeper", { exact: false }).first().waitFor();
     expect(await page2.getByTestId("permissions").textContent()).toContain("check stamps out");
 
@@ -74,11 +74,11 @@ describe("an administrator", () => {
 
 describe("each role", () => {
   it.each([
-    ["admin", ["Overview", "Stamp shelf", "Cloth plans", "Wax room", "Motif archive", "People"]],
-    ["keeper", ["Overview", "Stamp shelf", "Cloth plans", "Wax room", "Motif archive"]],
-    ["planner", ["Overview", "Stamp shelf", "Cloth plans", "Wax room", "Motif archive"]],
-    ["waxmaster", ["Overview", "Stamp shelf", "Cloth plans", "Wax room", "Motif archive"]],
-    ["designer", ["Overview", "Stamp shelf", "Cloth plans", "Wax room", "Motif archive"]],
+    ["admin", ["Overview", "Stamp shelf", "Cloth plans", "Wax room", "Motif archive", "Production runs", "People"]],
+    ["keeper", ["Overview", "Stamp shelf", "Cloth plans", "Wax room", "Motif archive", "Production runs"]],
+    ["planner", ["Overview", "Stamp shelf", "Cloth plans", "Wax room", "Motif archive", "Production runs"]],
+    ["waxmaster", ["Overview", "Stamp shelf", "Cloth plans", "Wax room", "Motif archive", "Production runs"]],
+    ["designer", ["Overview", "Stamp shelf", "Cloth plans", "Wax room", "Motif archive", "Production runs"]],
   ] as const)("%s sees the navigation its role allows", async (role, expected) => {
     const user = await createUser(role);
     const context = await browser.newContext();

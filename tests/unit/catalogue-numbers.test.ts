@@ -22,8 +22,10 @@ const textArguments = new Set([
   "date", "face", "fields", "file", "uses",
   // production runs: the stage numbers a refusal lists ("2, 4")
   "stages",
+  // production runs' screens: masses written by the unit helpers, a stage's label
+  "estimated", "used", "wax", "label",
   // a run's stage work: masses written by measures() before they reach the message, and a colour's name
-  "used", "estimated", "recovered", "before", "after", "added", "colour",
+  "recovered", "before", "after", "added", "colour",
   "amount", "cloth", "currency", "day", "density", "flash", "grams", "level", "limit", "metres", "onHand", "price", "rate", "recipe", "se",
 ]);
 

@@ -78,9 +78,8 @@ export async function stageStampRequests(tx: Db, stageIds: readonly string[]): P
     entry.codes.push(r.code);
     byId.set(r.id, entry);
   }
-  for (const { stageId, at: _at, ...r } of [...byId.values()].sort((a, b) => b.at - a.at)) {
-    r.codes.sort();
-    answer.set(stageId, [...(answer.get(stageId) ?? []), r]);
+  for (const r of [...byId.values()].sort((a, b) => b.at - a.at)) {
+    answer.set(r.stageId, [...(answer.get(r.stageId) ?? []), { id: r.id, state: r.state, fromOn: r.fromOn, untilOn: r.untilOn, codes: [...r.codes].sort() }]);
   }
   return answer;
 }

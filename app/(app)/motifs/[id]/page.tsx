@@ -7,6 +7,7 @@ import { MotifActions } from "@/components/motifs/motif-actions";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { startPlanUrl, type MotifEventDto } from "@/lib/contracts/motifs";
+import { runPages } from "@/lib/contracts/runs";
 import { measures } from "@/lib/i18n/measures";
 import type { Arrangement } from "@/lib/layout";
 import { getMotif, motifHistory, plansOfMotif, similarMotifs } from "@/lib/data/motifs";
@@ -36,6 +37,7 @@ export default async function MotifPage({ params, searchParams }: { params: Prom
   const savedParam = (await searchParams).saved;
   const saved = savedKinds.find((k) => k === savedParam);
   const canWrite = can(actor.role, "motifs:write");
+  const canStartRun = can(actor.role, "runs:write");
   const lastArrangement = plans[0]?.arrangement ?? null;
   const day = (iso: string) => format.dateTime(calendarDay(iso), "day");
   const eventLine = (e: MotifEventDto) => {
@@ -109,7 +111,14 @@ export default async function MotifPage({ params, searchParams }: { params: Prom
               <div className="space-y-4" data-testid="motif-colourways">
                 {motif.colourways.map((w) => (
                   <section key={w.id}>
-                    <h3 className="text-sm font-semibold text-stone-900">{w.name}</h3>
+                    <div className="flex flex-wrap items-center justify-between gap-2">
+                      <h3 className="text-sm font-semibold text-stone-900">{w.name}</h3>
+                      {canStartRun ? (
+                        <Link href={runPages.new({ motif: motif.id, colourway: w.id })} className="text-xs font-medium text-ink-700 hover:underline" data-testid="start-run">
+                          {t("motifs.page.startRun")}
+                        </Link>
+                      ) : null}
+                    </div>
                     {w.notes ? <p className="text-xs text-stone-600">{w.notes}</p> : null}
                     <ol className="mt-2 space-y-1.5">
                       {w.colours.map((c, i) => (
