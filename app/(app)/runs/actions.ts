@@ -103,7 +103,7 @@ export async function requestStageStampsAction(_prev: FormState, formData: FormD
   );
   if (state.status === "success") {
     revalidatePath(runPages.one(runId));
-    return { status: "success", message: (await getTranslations())("runs.stampRequest.done") };
+    redirect(`${runPages.one(runId)}?saved=requested`);
   }
   return state;
 }

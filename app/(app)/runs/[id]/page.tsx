@@ -66,7 +66,7 @@ export default async function RunPage({ params, searchParams }: Props) {
             <RunStateBadge state={run.state} />
             {run.state === "underway" && run.currentStage ? <span>{t("runs.list.atStage", { n: stageNumber(run.currentStage), of: run.stageCount, kind: t(`runs.stageKind.${run.currentStage.kind}`) })}</span> : null}
             <span>
-              <Link href={motifUrls.page(run.motif.id)} className="text-ink-700 hover:underline">
+              <Link href={motifUrls.page(run.motif.id)} className="text-ink-700 underline">
                 {run.motif.name}
               </Link>{" "}
               · {run.colourway.name} · {run.cloth} · {runSizeText(t, m, run.size, actor.unitSystem)}
