@@ -15,8 +15,7 @@ export function PageHeader({ title, intro, actions }: { title: string; intro?: R
     <div className="mb-6 flex flex-wrap items-end justify-between gap-4">
       <div>
         <h1 className="text-2xl font-semibold tracking-tight text-stone-900">{title}</h1>
-        {/* Links inside the intro's text are underlined: told apart from the words around them without colour (axe link-in-text-block). */}
-        {intro ? <p className="mt-1 max-w-3xl text-sm text-stone-600 [&_a]:underline">{intro}</p> : null}
+        {intro ? <p className="mt-1 max-w-3xl text-sm text-stone-600">{intro}</p> : null}
       </div>
       {actions}
     </div>
