@@ -274,4 +274,19 @@ describe("quality findings on the run page", () => {
     expect((await getRun()).findings).toHaveLength(run.findings.length + 1);
     await page.context().close();
   });
+
+  it("refuses a photo larger than the form can send beside the photo field, before anything is recorded", async () => {
+    const before = (await getRun()).findings.length;
+    const page = await pageAs(keeper);
+    await go(page, `/runs/${runId}`);
+    const form = page.getByRole("form", { name: "Record a quality finding" });
+    await form.getByLabel("Where on the cloth").fill(`${prefix} big photo`);
+    // 7.5 MiB: above the 7 MiB the form sends (FINDING_PHOTO_MAX_BYTES in components/runs/finding-form.tsx).
+    await form.getByLabel("Photo").setInputFiles({ name: "finding.jpg", mimeType: "image/jpeg", buffer: Buffer.alloc(7.5 * 1024 * 1024, 0xff) });
+    await form.getByRole("button", { name: "Record finding" }).click();
+    await expectMessageBeside(form.getByLabel("Photo"), /The photo is larger than 7 MB; choose a smaller one/);
+    expect(await form.getByLabel("Where on the cloth").inputValue()).toBe(`${prefix} big photo`);
+    expect((await getRun()).findings).toHaveLength(before);
+    await page.context().close();
+  });
 });
