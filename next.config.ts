@@ -6,7 +6,7 @@ const withNextIntl = createNextIntlPlugin("./lib/i18n/request.ts");
 const nextConfig: NextConfig = {
   // paper.js pulls in jsdom for SVG import/export, which the bundler cannot trace.
   // clipper2-wasm: on the server Node loads its CommonJS build, which reads the .wasm beside it.
-  serverExternalPackages: ["paper", "@node-rs/argon2", "sharp", "clipper2-wasm"],
+  serverExternalPackages: ["paper", "@node-rs/argon2", "sharp", "clipper2-wasm", "pino"],
   // In the browser its ES build is bundled (the .wasm becomes an asset); its Node-only branch imports "module".
   turbopack: { resolveAlias: { module: { browser: "./lib/layout/polygon/browser-module-stub.ts" } } },
   poweredByHeader: false,

@@ -1,6 +1,7 @@
 import type { Role, User } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 import { can, type Permission } from "@/lib/permissions";
+import { audit } from "./log";
 
 /** The person acting, as the data-access layer sees them: always re-read from the database. */
 export interface Actor {
@@ -25,5 +26,7 @@ export const toActor = (user: User, via: Actor["via"] = "session"): Actor => ({
 
 /** Throws 403 unless the actor's role has the permission (lib/permissions.ts). */
 export function assertCan(actor: Actor, permission: Permission) {
-  if (!can(actor.role, permission)) throw new AppError("forbidden");
+  if (can(actor.role, permission)) return;
+  audit("permission.denied", actor, { permission });
+  throw new AppError("forbidden");
 }

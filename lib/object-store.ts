@@ -104,6 +104,8 @@ export interface ObjectStore {
   presignGet(key: string, options: { filename: string; contentType?: string; expiresSeconds?: number }): Promise<string>;
   /** Creates the bucket when it does not exist. */
   ensureBucket(): Promise<void>;
+  /** Resolves when the bucket answers (a load balancer's health check); throws otherwise. */
+  ping(): Promise<void>;
 }
 
 export function createObjectStore(config: S3Config, client: S3Client = createS3Client(config)): ObjectStore {
@@ -207,6 +209,10 @@ export function createObjectStore(config: S3Config, client: S3Client = createS3C
         }),
         { expiresIn: options.expiresSeconds ?? 300 },
       );
+    },
+
+    async ping() {
+      await client.send(new HeadBucketCommand({ Bucket }));
     },
 
     async ensureBucket() {

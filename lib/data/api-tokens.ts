@@ -6,6 +6,7 @@ import { hashSecret, newSecret } from "@/lib/auth/secrets";
 import { AppError } from "@/lib/errors";
 import { assertCan, type Actor } from "@/lib/authz";
 import type { ApiTokenDto, OwnedApiTokenDto } from "@/lib/contracts/people";
+import { audit } from "@/lib/log";
 
 export async function listApiTokens(actor: Actor): Promise<ApiTokenDto[]> {
   assertCan(actor, "account:self");
@@ -38,6 +39,7 @@ export async function revokeApiToken(actor: Actor, id: string) {
     .where(and(eq(apiTokens.id, id), eq(apiTokens.userId, actor.id), isNull(apiTokens.revokedAt)))
     .returning({ id: apiTokens.id });
   if (!row) throw new AppError("notFound");
+  audit("record.deleted", actor, { kind: "apiToken", id });
 }
 
 /** Every live API token of every user, newest first (administrators). */
@@ -62,5 +64,7 @@ export async function revokeAnyApiToken(actor: Actor, id: string): Promise<{ nam
     .returning({ name: apiTokens.name, userId: apiTokens.userId });
   if (!row) throw new AppError("notFound");
   const [owner] = await db.select({ name: users.name }).from(users).where(eq(users.id, row.userId));
-  return { name: row.name, ownerName: owner?.name ?? "" };
+  const result = { name: row.name, ownerName: owner?.name ?? "" };
+  audit("record.deleted", actor, { kind: "apiToken", id });
+  return result;
 }

@@ -4,6 +4,7 @@ import { db } from "@/db";
 import { signInCounters, signInFailures, users, type User } from "@/db/schema";
 import { verifyPassword } from "@/lib/auth/passwords";
 import { addressKey } from "@/lib/client-address";
+import { audit } from "@/lib/log";
 
 /**
  * The sign-in limit. Every attempt is counted before its password is checked, in one statement, so
@@ -51,7 +52,10 @@ export function accountDelayMs(checks: number): number {
 export async function checkCredentials(rawEmail: string, password: string, address: string | null): Promise<CredentialsResult> {
   const email = rawEmail.trim().toLowerCase();
   const scope = address ? addressKey(address) : null;
-  if (scope && (await countAttempt(email, scope)) > signInLimit.perAddress) return { kind: "rateLimited" };
+  if (scope && (await countAttempt(email, scope)) > signInLimit.perAddress) {
+    audit("signIn.limited", null, { email, address: scope });
+    return { kind: "rateLimited" };
+  }
   const wait = accountDelayMs(await countAttempt(email, ALL_ADDRESSES));
   if (wait > 0) await new Promise((resolve) => setTimeout(resolve, wait));
 
@@ -63,6 +67,7 @@ export async function checkCredentials(rawEmail: string, password: string, addre
     const dayAgo = new Date(Date.now() - 24 * 60 * 60_000);
     await db.delete(signInFailures).where(lt(signInFailures.at, dayAgo));
     await db.delete(signInCounters).where(lt(signInCounters.windowStartedAt, dayAgo));
+    audit("signIn.failed", user ? { id: user.id, role: user.role, name: user.name } : null, { email, address: scope, reason: !user ? "unknownEmail" : user.disabled ? "disabled" : "wrongPassword" });
     return { kind: "invalid" };
   }
   // The owner proved the password: this address starts afresh, and the check does not count against the account.
@@ -71,6 +76,7 @@ export async function checkCredentials(rawEmail: string, password: string, addre
     .update(signInCounters)
     .set({ attempts: sql`greatest(${signInCounters.attempts} - 1, 0)` })
     .where(and(eq(signInCounters.email, email), eq(signInCounters.scope, ALL_ADDRESSES)));
+  audit("signIn.succeeded", { id: user.id, role: user.role, name: user.name }, { email, address: scope });
   return { kind: "ok", user };
 }
 

@@ -1,5 +1,5 @@
 import { spawnSync } from "node:child_process";
-import { existsSync, readFileSync, readdirSync, statSync, writeFileSync } from "node:fs";
+import { existsSync, readFileSync, readdirSync, statSync, utimesSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { projectRoot } from "./config";
 
@@ -14,10 +14,15 @@ function newestMtime(path: string): number {
   return newest;
 }
 
-/** Builds the app with `next build` unless the last build is newer than every source file. */
+/**
+ * Builds the app with `next build` unless the last build started after every source file was last changed. The
+ * start time is kept beside the build (a file saved while a build runs makes the next start build again).
+ */
 export function buildIfStale(force = false) {
-  const buildId = join(projectRoot, process.env.NEXT_DIST_DIR || ".next", "BUILD_ID");
-  const builtAt = existsSync(buildId) ? statSync(buildId).mtimeMs : 0;
+  const dist = join(projectRoot, process.env.NEXT_DIST_DIR || ".next");
+  const startedFile = join(dist, "capgrid-build-started");
+  const buildId = join(dist, "BUILD_ID");
+  const builtAt = existsSync(buildId) && existsSync(startedFile) ? Number(readFileSync(startedFile, "utf8")) || 0 : 0;
   const sourcesAt = Math.max(...sourceEntries.map((e) => newestMtime(join(projectRoot, e))));
   if (!force && builtAt > sourcesAt) {
     console.log("[build] the last build is up to date");
@@ -28,7 +33,14 @@ export function buildIfStale(force = false) {
   // folders of their own (.next-test-N), which must not end up in the committed file.
   const tsconfig = join(projectRoot, "tsconfig.json");
   const before = readFileSync(tsconfig, "utf8");
+  const beforeStat = statSync(tsconfig);
+  const started = Date.now();
   const result = spawnSync(join(projectRoot, "node_modules", ".bin", "next"), ["build"], { stdio: "inherit", cwd: projectRoot, env: process.env });
-  if ((process.env.NEXT_DIST_DIR || ".next") !== ".next" && readFileSync(tsconfig, "utf8") !== before) writeFileSync(tsconfig, before);
+  if ((process.env.NEXT_DIST_DIR || ".next") !== ".next" && readFileSync(tsconfig, "utf8") !== before) {
+    writeFileSync(tsconfig, before);
+    // Put back its time too, so the restored file does not count as a change made after the build started.
+    utimesSync(tsconfig, beforeStat.atime, beforeStat.mtime);
+  }
   if (result.status !== 0) throw new Error("next build failed; see the messages above");
+  writeFileSync(startedFile, String(started));
 }

@@ -152,7 +152,7 @@ export function startCluster({ dir, databaseUrl }: ClusterOptions) {
 
   const roleExists = psql(bin, socketDir, port, `SELECT 1 FROM pg_roles WHERE rolname = ${quoteLiteral(user)}`) === "1";
   const setPassword = `PASSWORD ${quoteLiteral(password)}`;
-  psql(bin, socketDir, port, roleExists ? `ALTER ROLE ${quoteIdent(user)} WITH LOGIN ${setPassword}` : `CREATE ROLE ${quoteIdent(user)} WITH LOGIN ${setPassword}`);
+  psql(bin, socketDir, port, roleExists ? `ALTER ROLE ${quoteIdent(user)} WITH LOGIN CREATEDB ${setPassword}` : `CREATE ROLE ${quoteIdent(user)} WITH LOGIN CREATEDB ${setPassword}`);
   const dbExists = psql(bin, socketDir, port, `SELECT 1 FROM pg_database WHERE datname = ${quoteLiteral(database)}`) === "1";
   if (!dbExists) {
     psql(bin, socketDir, port, `CREATE DATABASE ${quoteIdent(database)} OWNER ${quoteIdent(user)}`);

@@ -34,6 +34,8 @@ export function testEnvironment(slot: number) {
     SCAN_MAX_BYTES: String(8 * 1024 * 1024),
     SCAN_MAX_PIXELS: "40000000",
     NEXT_DIST_DIR: `.next-test${suffix}`,
+    // The app's structured log, for the tests that read it (tests/integration/logs.test.ts).
+    LOG_FILE: join(projectRoot, `.test-data${suffix}`, "app.log"),
     CHROMIUM_PATH: chromiumPath,
   });
   return { env: loadConfig(), dataDir: join(projectRoot, `.test-data${suffix}`) };

@@ -19,6 +19,7 @@ import { scanUrls } from "@/lib/contracts/scans";
 import { isUniqueViolation } from "@/lib/data/stamps/events";
 import { similarToStamp } from "@/lib/data/scans/similar";
 import type { CollectionInput, CreateMotifInput, MotifListQuery, UpdateCollectionInput, UpdateMotifInput } from "@/lib/validation/motifs";
+import { audit } from "@/lib/log";
 
 // The motif archive's data layer: motifs with their stamp sets, colourways and collections, their history,
 // and the seam to the plans that used them.
@@ -387,6 +388,7 @@ export async function deleteMotif(actor: Actor, id: string, version?: number): P
     await tx.update(stamps).set({ motifId: null }).where(eq(stamps.motifId, id));
     await tx.delete(motifs).where(eq(motifs.id, id));
   });
+  audit("record.deleted", actor, { kind: "motif", id });
 }
 
 // Collections.
@@ -450,6 +452,7 @@ export async function deleteCollection(actor: Actor, id: string): Promise<void> 
     if (current.motifCount > 0) throw new AppError("collectionInUse", { count: current.motifCount });
     await tx.delete(motifCollections).where(eq(motifCollections.id, id));
   });
+  audit("record.deleted", actor, { kind: "collection", id });
 }
 
 /** Other motifs whose stamps look like this motif's main stamp, nearest first (search by picture on its scans). */

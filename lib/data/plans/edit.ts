@@ -12,6 +12,7 @@ import type { CreatePlanInput, PlanLayout, UpdatePlanInput } from "@/lib/validat
 import { computePlan, type ComputedPlan } from "./compute";
 import { planDto, withCurrentCodes } from "./record";
 import { findPlan, recordPlanEvent } from "./shared";
+import { audit } from "@/lib/log";
 
 // Saving, changing, copying, recomputing and deleting plans. Every change runs in one transaction with its
 // history entry; a change made from an older version is refused (409 versionConflict), never saved over.
@@ -171,6 +172,7 @@ export async function deletePlan(actor: Actor, id: string, version: number): Pro
     await refuseIfInRuns(tx, id);
     await tx.delete(plans).where(eq(plans.id, id));
   });
+  audit("record.deleted", actor, { kind: "plan", id });
 }
 
 /** Refuses (409 planInRuns, naming them) to delete a plan that production runs stamp; the foreign keys back this up. */

@@ -13,6 +13,7 @@ import { calibratedRateFor } from "../wax/calibration";
 import { planForWax } from "../wax/plans";
 import { loadMaterials, loadRecipes, toDomainMaterial } from "../wax/shared";
 import { findRun, recordRunEvent, runDto, totalMetresOf } from "./shared";
+import { audit } from "@/lib/log";
 
 // Creating, editing and deleting runs. Each change runs in one transaction with its history row; an edit from an
 // old version → 409 versionConflict. A stage's estimates (wax from the wax room's estimator at the calibrated
@@ -267,4 +268,5 @@ export async function deleteRun(actor: Actor, id: string, version?: number): Pro
     if (progressCount + findingCount > 0) throw new AppError("runHasRecords", { progress: progressCount, findings: findingCount });
     await tx.delete(runs).where(eq(runs.id, id));
   });
+  audit("record.deleted", actor, { kind: "run", id });
 }

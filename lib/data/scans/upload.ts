@@ -11,6 +11,7 @@ import { isUniqueViolation, recordEvent } from "../stamps/events";
 import { scanKeys, scanRow } from "./rows";
 import { type ScanDto, type ScanUpload } from "@/lib/contracts/scans";
 import { deleteQuietly, findScan, findStamp, keysOf, scanLimits, toDto, uploadPrefix } from "./shared";
+import { audit } from "@/lib/log";
 
 // Uploading scans: a presigned PUT, then checking, measuring and keeping the file; deleting a scan.
 
@@ -134,4 +135,5 @@ export async function deleteScan(actor: Actor, code: string, id: string): Promis
   await db.delete(stampScans).where(eq(stampScans.id, scan.id));
   // After the row: a failed delete leaves orphaned bytes, never a row pointing at nothing.
   await deleteObjects(keysOf(scan));
+  audit("record.deleted", actor, { kind: "scan", id, code });
 }

@@ -12,6 +12,7 @@ import { locationLabel } from "@/lib/stamps/format";
 import { isForeignKeyViolation, isUniqueViolation, recordEvent } from "./events";
 import { bump, findStamp, locationOrFail, openCheckoutOf } from "./shared";
 import { checkConditionChange, recordConditionChange } from "./condition";
+import { audit } from "@/lib/log";
 
 // Adding, changing and deleting stamps, with their mirror twins; every change writes its history in the same transaction.
 
@@ -225,4 +226,5 @@ export async function deleteStamp(actor: Actor, code: string, version?: number) 
   });
   // The rows went with the stamp (cascade); the files go once the delete is committed.
   if (scanKeys.length) await deleteObjects(scanKeys);
+  audit("record.deleted", actor, { kind: "stamp", code });
 }

@@ -7,6 +7,7 @@ import { AppError } from "@/lib/errors";
 import type { LocationInput } from "@/lib/validation/stamps";
 import { isForeignKeyViolation, isUniqueViolation } from "./events";
 import type { LocationDto } from "@/lib/contracts/stamps";
+import { audit } from "@/lib/log";
 
 const toDto = (l: Location, stampCount = 0): LocationDto => ({ id: l.id, site: l.site, code: l.code, description: l.description, stampCount });
 
@@ -75,4 +76,5 @@ export async function deleteLocation(actor: Actor, id: string): Promise<{ site: 
     if (isForeignKeyViolation(error)) throw new AppError("locationInUse");
     throw error;
   }
+  audit("record.deleted", actor, { kind: "location", id });
 }

@@ -12,6 +12,7 @@ import { currentSettings } from "../settings";
 import { calibratedRateFor } from "./calibration";
 import { planForWax } from "./plans";
 import { componentsById, loadMaterials, loadRecipes, toDomainMaterial, toNote, type Db } from "./shared";
+import { audit } from "@/lib/log";
 
 // Estimates: the wax a run takes (lib/wax estimateWax) for a saved plan or a waxed area per metre, a saved recipe
 // or an inline mix, at the given rate or the calibrated one (else the wax master's default); saved ones count
@@ -191,4 +192,5 @@ export async function deleteEstimate(actor: Actor, id: string, version?: number)
     if (version !== undefined && row.version !== version) throw new AppError("versionConflict");
     await tx.delete(waxEstimates).where(eq(waxEstimates.id, id));
   });
+  audit("record.deleted", actor, { kind: "estimate", id });
 }

@@ -9,6 +9,7 @@ import type { CreateRecipeInput, DuplicateRecipeInput, RecipeListQuery, UpdateRe
 import { WaxInputError, analyseRecipe, validateRecipe, type RecipeAnalysis, type RecipeInput } from "@/lib/wax";
 import { isUniqueViolation } from "../stamps/events";
 import { bumpRecipe, componentsById, loadMaterials, loadRecipes, recordRecipeChange, toDomainMaterial, toMaterialRef, toNote, toRecipeMix, type Db, type StoredRecipe } from "./shared";
+import { audit } from "@/lib/log";
 
 // Recipes: a mix by mass % with its working range, versioned, with a history; duplicated into a season's
 // variant; compared side by side; refused when their range reaches within 50 °C of a flash point.
@@ -220,6 +221,7 @@ export async function deleteRecipe(actor: Actor, id: string, version?: number): 
     if (estimates.n + uses.n > 0) throw new AppError("recipeInUse", { name: row.name, estimates: estimates.n, uses: uses.n }, undefined, { estimates: estimates.n, uses: uses.n });
     await tx.delete(waxRecipes).where(eq(waxRecipes.id, id));
   });
+  audit("record.deleted", actor, { kind: "recipe", id });
 }
 
 /**

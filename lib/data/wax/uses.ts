@@ -10,6 +10,7 @@ import { impressionsOfWaxing, massFractions, useAreaM2 as areaOfUse, useGrams as
 import { addImpressions, type ImpressionsToAdd } from "../stamps/impressions";
 import { planForWax } from "./plans";
 import { loadRecipes } from "./shared";
+import { audit } from "@/lib/log";
 
 // Wax uses: what one waxing actually used. Recording one takes its wax out of stock (a "use" movement per material
 // of the recipe, by mass share) and adds its impressions to the stamps through the one writer of impression
@@ -189,5 +190,7 @@ export async function withdrawWaxUse(actor: Actor, id: string, input: WithdrawWa
     const back = made.filter((m) => m.stampId).map((m) => ({ stampId: m.stampId!, impressions: -m.impressions }));
     if (back.length) await addImpressions(tx, back, { kind: "waxUse", id, withdrawn: true }, actor);
   });
-  return getWaxUse(actor, id);
+  const result = getWaxUse(actor, id);
+  audit("record.deleted", actor, { kind: "waxUse", id });
+  return result;
 }
