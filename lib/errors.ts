@@ -49,6 +49,7 @@ export const errorStatus = {
   requestStampsUnavailable: 409,
   requestStampsReserved: 409,
   motifInUse: 409,
+  colourwayInRuns: 409,
   motifHasMain: 409,
   collectionInUse: 409,
   collectionTaken: 409,

@@ -93,7 +93,7 @@ export interface ObjectStore {
   /** The object's bytes, or null when there is none; refuses (ObjectTooLarge) past `maxBytes` without reading on. */
   getObjectBytes(key: string, options?: { maxBytes?: number }): Promise<Buffer | null>;
   /** The object as a stream for an HTTP answer, or null when there is none. */
-  getObjectStream(key: string): Promise<{ body: ReadableStream<Uint8Array>; sizeBytes: number | null } | null>;
+  getObjectStream(key: string): Promise<{ body: ReadableStream<Uint8Array>; sizeBytes: number | null; contentType: string | null } | null>;
   headObject(key: string): Promise<ObjectHead | null>;
   deleteObject(key: string): Promise<void>;
   /** Deletes up to any number of keys, 1000 per request; missing keys are not an error. */
@@ -124,7 +124,7 @@ export function createObjectStore(config: S3Config, client: S3Client = createS3C
       try {
         const response = await client.send(new GetObjectCommand({ Bucket, Key: key }));
         const body = response.Body as { transformToWebStream(): ReadableStream<Uint8Array> } | undefined;
-        return body ? { body: body.transformToWebStream(), sizeBytes: response.ContentLength ?? null } : null;
+        return body ? { body: body.transformToWebStream(), sizeBytes: response.ContentLength ?? null, contentType: response.ContentType ?? null } : null;
       } catch (error) {
         if (isNotFound(error)) return null;
         throw error;

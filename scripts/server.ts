@@ -8,6 +8,7 @@ import { createServer } from "node:http";
 import next from "next";
 import { clientAddress, clientAddressHeader, forwardedHeaders, serverMarkerVariable } from "../lib/client-address";
 import { loadConfig, projectRoot } from "./lib/config";
+import { allowServerModules } from "./lib/server-modules";
 
 const argv = process.argv.slice(2);
 const option = (name: string) => (argv.includes(name) ? argv[argv.indexOf(name) + 1] : undefined);
@@ -31,6 +32,13 @@ const server = createServer((req, res) => {
   else delete req.headers[clientAddressHeader];
   void handle(req, res);
 });
+// The job workers (lib/jobs): in this process beside Next, on the same database; JOBS=off leaves them to other servers.
+if (!dev && process.env.JOBS !== "off") {
+  allowServerModules();
+  const { startJobWorkers } = await import("@/lib/jobs/workers");
+  await startJobWorkers();
+}
+
 server.listen(port, hostname, () => console.log(`[server] ${dev ? "development" : "production"} on http://${hostname}:${port}${trustedProxies ? `, behind ${trustedProxies} trusted prox${trustedProxies === 1 ? "y" : "ies"}` : ""}`));
 
 const stop = () => {

@@ -25,7 +25,7 @@ export interface MotifFormValues {
 
 type Action = (state: FormState, formData: FormData) => Promise<FormState>;
 
-/** Adds or edits a motif: its facts, collections, stamp set (one "CODE role" a line) and colourways (one a line). */
+/** Adds or edits a motif: its facts, collections, stamp set (one "CODE role" a line) and colourways (one colour a line under its colourway). */
 export function MotifForm({ action, initial, collections, mode, cancelHref }: { action: Action; initial: MotifFormValues; collections: CollectionDto[]; mode: "create" | "edit"; cancelHref: string }) {
   const t = useTranslations();
   const [state, formAction, pending] = useActionState(action, initialFormState);
@@ -74,7 +74,7 @@ export function MotifForm({ action, initial, collections, mode, cancelHref }: { 
         {(a) => <textarea {...a} name="stamps" rows={4} className={`${a.className} font-mono`} defaultValue={v("stamps", initial.stamps)} />}
       </Field>
       <Field id="colourways" label={t("motifs.fields.colourways")} errors={e.colourways} hint={t("motifs.fields.colourwaysHint")}>
-        {(a) => <textarea {...a} name="colourways" rows={4} className={`${a.className} font-mono`} defaultValue={v("colourways", initial.colourways)} />}
+        {(a) => <textarea {...a} name="colourways" rows={8} className={`${a.className} font-mono`} defaultValue={v("colourways", initial.colourways)} />}
       </Field>
       <Field id="notes" label={t("motifs.fields.notes")} errors={e.notes}>
         {(a) => <textarea {...a} name="notes" rows={3} defaultValue={v("notes", initial.notes)} />}

@@ -12,6 +12,9 @@ import type { UnitSystem } from "@/lib/stamps/format";
 
 const roles = ["main", "filler", "border", "corner", "reverse_twin"] as const;
 
+/** What the file picker offers; the server decides from the bytes (lib/scans), never from this. */
+export const sketchAccept = "image/png,image/jpeg,image/webp";
+
 /** A motif's new-stamp request: the size in the person's unit (inches for imperial), the role the stamp will play in the set, a note for the maker. */
 export function NewStampRequestForm({ action, motifId, backTo, unitSystem }: { action: (prev: FormState, form: FormData) => Promise<FormState>; motifId: string; backTo: string; unitSystem: UnitSystem }) {
   const t = useTranslations();
@@ -37,6 +40,9 @@ export function NewStampRequestForm({ action, motifId, backTo, unitSystem }: { a
       </Field>
       <Field id="ask-note" label={t("requests.ask.note")} errors={e.note}>
         {(aria) => <textarea {...aria} name="note" rows={3} defaultValue={v("note")} key={`n-${state.status}`} />}
+      </Field>
+      <Field id="ask-sketch" label={t("requests.ask.sketch")} hint={t("requests.ask.sketchHint")} errors={e.sketch}>
+        {(aria) => <input {...aria} type="file" name="sketch" accept={sketchAccept} key={`s-${state.status}`} />}
       </Field>
       <div className="flex items-center gap-3">
         <Button type="submit" disabled={pending}>

@@ -1,16 +1,33 @@
 "use client";
 
-import { usePathname, useSearchParams } from "next/navigation";
-import { useEffect, useState } from "react";
+import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { useEffect, useMemo, useState, useTransition } from "react";
 
 /**
  * State kept in the address (filters, sort, page), so a link or a reload shows the same view. Changes
- * go through the History API, which updates useSearchParams without asking the server to render again.
+ * go through the History API, which updates useSearchParams without asking the server to render again;
+ * with `{ server: true }` (a page the server draws from its address, like the shelf's pictures) they replace
+ * the address through the router instead, so the server draws the page again (`pending` while it does). Until
+ * that navigation lands, `params` already holds the change, so a ticked box stays ticked and a second change
+ * builds on the first.
  */
-export function useUrlParams() {
+export function useUrlParams(options: { server?: boolean } = {}) {
   const pathname = usePathname();
-  const params = useSearchParams();
-  const go = (url: string) => window.history.replaceState(null, "", url);
+  const searchParams = useSearchParams();
+  const router = useRouter();
+  const [pending, startTransition] = useTransition();
+  const current = searchParams.toString();
+  const [ahead, setAhead] = useState<{ from: string; to: string } | null>(null);
+  // The address the router landed on replaces what was set ahead of it.
+  if (ahead && ahead.from !== current) setAhead(null);
+  const aheadQuery = ahead && ahead.from === current ? ahead.to : null;
+  const params: URLSearchParams = useMemo(() => (aheadQuery !== null ? new URLSearchParams(aheadQuery) : searchParams), [aheadQuery, searchParams]);
+  const go = (qs: string) => {
+    const url = qs ? `${pathname}?${qs}` : pathname;
+    if (!options.server) return window.history.replaceState(null, "", url);
+    setAhead({ from: current, to: qs });
+    startTransition(() => router.replace(url, { scroll: false }));
+  };
   /** Sets or clears (null, "") the named params; a change of filter goes back to the first page. */
   const set = (changes: Record<string, string | null>, resetPage = true) => {
     const next = new URLSearchParams(params.toString());
@@ -19,10 +36,9 @@ export function useUrlParams() {
       else next.set(key, value);
     }
     if (resetPage) next.delete("page");
-    const qs = next.toString();
-    go(qs ? `${pathname}?${qs}` : pathname);
+    go(next.toString());
   };
-  return { params, set, clear: () => go(pathname) };
+  return { params, set, clear: () => go(""), pending };
 }
 
 /** A text box bound to a URL param that updates the address a moment after typing stops. */

@@ -27,7 +27,7 @@ export interface Endpoint {
   body?: z.ZodType;
   /** An empty request body counts as `{}` (e.g. a return with nothing to add). */
   bodyOptional?: boolean;
-  /** Turns a refused body into the route's own refusal (the scan routes answer a hidden character in a file name as badFileName). */
+  /** Turns a refused body or query into the route's own refusal (the scan and picture routes answer a hidden character in a file name as badFileName). */
   bodyRefusal?: (error: ValidationFailed) => Error | undefined;
   /** A body that is not JSON, read by the handler itself (documented only). */
   accepts?: "text/csv" | "image/*";
@@ -83,7 +83,7 @@ export function apiRoute<E extends Endpoint>(endpoint: E, handler: (ctx: Context
       t = translator(localeFrom(request, actor));
       assertCan(actor, endpoint.permission);
       const params = endpoint.params ? parseOrThrow(endpoint.params, await context.params) : undefined;
-      const query = endpoint.query ? parseOrThrow(endpoint.query, queryObject(new URL(request.url).searchParams)) : undefined;
+      const query = endpoint.query ? parseQuery(endpoint, new URL(request.url).searchParams) : undefined;
       const body = endpoint.body ? await readBody(request, endpoint) : undefined;
       const result = await handler({ request, actor, params, query, body, t } as Context<E>);
       return privateAnswer(result instanceof Response ? result : NextResponse.json(result));
@@ -93,6 +93,14 @@ export function apiRoute<E extends Endpoint>(endpoint: E, handler: (ctx: Context
   };
   route.endpoint = endpoint;
   return route;
+}
+
+function parseQuery(endpoint: Endpoint, search: URLSearchParams) {
+  try {
+    return parseOrThrow(endpoint.query!, queryObject(search));
+  } catch (error) {
+    throw (error instanceof ValidationFailed && endpoint.bodyRefusal?.(error)) || error;
+  }
 }
 
 async function readBody(request: Request, endpoint: Endpoint) {

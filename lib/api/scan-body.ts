@@ -1,5 +1,7 @@
 import "server-only";
-import type { ValidationFailed } from "@/lib/errors";
+import { AppError, type ValidationFailed } from "@/lib/errors";
+import { scanLimits } from "@/lib/data/scans";
+import { readBodyBytes } from "./body";
 import { ScanRejected } from "@/lib/scans";
 import { MAX_FILE_NAME_LENGTH } from "@/lib/scans/file-name";
 import { controlCharacterMessage } from "@/lib/validation/parse";
@@ -12,4 +14,18 @@ import { controlCharacterMessage } from "@/lib/validation/parse";
 export function scanBodyRefusal(error: ValidationFailed): Error | undefined {
   const hidden = error.issues.some((i) => i.path.join(".") === "fileName" && i.message === controlCharacterMessage);
   return hidden ? new ScanRejected("badFileName", { reason: "hiddenCharacters", maxLength: MAX_FILE_NAME_LENGTH }) : undefined;
+}
+
+/**
+ * The picture in a request's body (a sketch, a finding's photo), read with the scan limit counted while reading:
+ * more than that is refused as the scan refusal `tooLarge` (413), before anything is decoded or stored.
+ */
+export async function readPictureBody(request: Request): Promise<Buffer> {
+  const maxBytes = scanLimits().maxBytes;
+  try {
+    return await readBodyBytes(request, maxBytes);
+  } catch (error) {
+    if (error instanceof AppError && error.code === "payloadTooLarge") throw new ScanRejected("tooLarge", { maxBytes });
+    throw error;
+  }
 }

@@ -168,39 +168,77 @@ export function motifFormInput(form: FormData): Record<string, unknown> {
 
 const FACES = new Set<string>(clothFaceValues);
 
-/**
- * Colourways written one a line: "Name: Colour #rrggbb [CODE CODE face]; Colour #rrggbb". What does not read as
- * a colour keeps its text as the name and an empty swatch, so the schema names the line's problem.
- */
-export function parseColourways(text: string): Array<{ name: string; colours: Array<{ name: string; swatch: string; waxStamps: string[]; face: ClothFace }> }> {
-  return text
-    .split(/\r?\n/)
-    .map((line) => line.trim())
-    .filter(Boolean)
-    .map((line) => {
-      const colon = line.indexOf(":");
-      const name = colon >= 0 ? line.slice(0, colon).trim() : line;
-      const rest = colon >= 0 ? line.slice(colon + 1) : "";
-      const colours = rest
-        .split(";")
-        .map((c) => c.trim())
-        .filter(Boolean)
-        .map((c) => {
-          const m = /^(.*?)\s*(#[0-9a-fA-F]{6})\s*(?:\[([^\]]*)\])?$/.exec(c);
-          if (!m) return { name: c, swatch: "", waxStamps: [], face: "front" as ClothFace };
-          const words = (m[3] ?? "").split(/[\s,]+/).filter(Boolean);
-          const face = (words.find((w) => FACES.has(w.toLowerCase()))?.toLowerCase() ?? "front") as ClothFace;
-          return { name: m[1].trim(), swatch: m[2].toLowerCase(), waxStamps: words.filter((w) => !FACES.has(w.toLowerCase())), face };
-        });
-      return { name, colours };
-    });
+type ColourInput = { name: string; swatch: string; waxStamps: string[]; face: ClothFace; dyeNotes?: string };
+
+/** One colour as written: "Colour #rrggbb [CODE CODE face]"; what does not read as one keeps its text as the name and no swatch. */
+/** Dye notes follow " // " on a colour's line (and a colourway's notes on its name line). */
+const NOTES = " // ";
+const splitNotes = (line: string): [string, string | undefined] => {
+  const at = line.indexOf(NOTES.trim());
+  return at < 0 ? [line, undefined] : [line.slice(0, at).trim(), line.slice(at + NOTES.trim().length).trim() || undefined];
+};
+
+function parseColour(line: string): ColourInput {
+  const [c, dyeNotes] = splitNotes(line);
+  const m = /^(.*?)\s*(#[0-9a-fA-F]{6})\s*(?:\[([^\]]*)\])?$/.exec(c);
+  if (!m) return { name: c, swatch: "", waxStamps: [], face: "front", dyeNotes };
+  const words = (m[3] ?? "").split(/[\s,]+/).filter(Boolean);
+  const face = (words.find((w) => FACES.has(w.toLowerCase()))?.toLowerCase() ?? "front") as ClothFace;
+  return { name: m[1].trim(), swatch: m[2].toLowerCase(), waxStamps: words.filter((w) => !FACES.has(w.toLowerCase())), face, dyeNotes };
 }
 
-/** Colourways back as the form's lines (parseColourways reads them again unchanged). */
+/**
+ * Colourways as text lines, one colour a line in the order of work under its colourway's name:
+ *
+ *     Brown and indigo:
+ *     Undyed mori #f4efe6 [CODE both]
+ *     Soga brown #8a5a2b
+ *
+ * A line with a colon starts a colourway; colours written after the colon on the same line, separated by ";",
+ * belong to it too (the older one-line form, "Name: Colour #rrggbb [CODE face]; Colour #rrggbb"). A colour line
+ * before any name starts a colourway without one, so the schema names what is missing. What does not read as a
+ * colour keeps its text as the name and an empty swatch, so the schema names the line's problem. Notes follow " // ":
+ * a colour's dye notes on its line ("Soga brown #8a5a2b // two baths, fix with lime"), a colourway's on its name line.
+ */
+export function parseColourways(text: string): Array<{ name: string; notes?: string; colours: ColourInput[] }> {
+  const ways: Array<{ name: string; notes?: string; colours: ColourInput[] }> = [];
+  for (const raw of text.split(/\r?\n/)) {
+    const line = raw.trim().replace(/^[-•*]\s+/, "");
+    if (!line) continue;
+    const colon = line.indexOf(":");
+    if (colon >= 0) {
+      const after = line.slice(colon + 1).trim();
+      // "Name: // notes" carries the colourway's notes; otherwise colours may follow on the line (the older form).
+      const hasNotes = after.startsWith(NOTES.trim());
+      const notes = hasNotes ? after.slice(NOTES.trim().length).trim() || undefined : undefined;
+      const rest = hasNotes ? "" : after;
+      ways.push({
+        name: line.slice(0, colon).trim(),
+        notes,
+        colours: rest
+          .split(";")
+          .map((c) => c.trim())
+          .filter(Boolean)
+          .map(parseColour),
+      });
+      continue;
+    }
+    if (!ways.length) ways.push({ name: "", colours: [] });
+    ways[ways.length - 1].colours.push(parseColour(line));
+  }
+  return ways;
+}
+
+/** Colourways back as the form's lines, one colour a line under its colourway (parseColourways reads them again unchanged). */
 export function colourwaysText(colourways: ColourwayDto[]): string {
   return colourways
-    .map((w) => `${w.name}: ${w.colours.map((c) => `${c.name} ${c.swatch}${c.waxStamps.length || c.face !== "front" ? ` [${[...c.waxStamps, c.face].join(" ")}]` : ""}`).join("; ")}`)
-    .join("\n");
+    .map((w) =>
+      [
+        `${w.name}:${w.notes ? `${NOTES}${w.notes}` : ""}`,
+        ...w.colours.map((c) => `${c.name} ${c.swatch}${c.waxStamps.length || c.face !== "front" ? ` [${[...c.waxStamps, c.face].join(" ")}]` : ""}${c.dyeNotes ? `${NOTES}${c.dyeNotes}` : ""}`),
+      ].join("\n"),
+    )
+    .join("\n\n");
 }
 
 /** The stamp set as the form's lines: "CODE role". */

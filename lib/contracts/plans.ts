@@ -347,6 +347,8 @@ export interface NewStampRequestDto {
   state: "open" | "declined" | "made";
   /** The stamp made from the request (state `made`), while it exists. */
   stamp: { id: string; code: string } | null;
+  /** The sketch of the stamp to make (a picture checked like a scan), with its addresses. */
+  sketch: { fileName: string | null; contentType: string; urls: { original: string; thumb: string } } | null;
   requesterName: string;
   answeredByName: string | null;
   answeredAt: string | null;
@@ -358,6 +360,8 @@ export interface NewStampRequestDto {
 export const requestUrls = {
   stampRequests: (query: string | URLSearchParams = "") => withQuery("/api/v1/stamp-requests", query),
   stampRequest: (id: string) => `/api/v1/stamp-requests/${enc(id)}`,
+  /** A new-stamp request's sketch (PUT the picture as the body; GET it, or its thumbnail). */
+  sketch: (id: string, variant: "original" | "thumb" = "original") => `/api/v1/new-stamp-requests/${enc(id)}/sketch${variant === "thumb" ? "?variant=thumb" : ""}`,
   accept: (id: string) => `/api/v1/stamp-requests/${enc(id)}/accept`,
   decline: (id: string) => `/api/v1/stamp-requests/${enc(id)}/decline`,
   newStampRequests: (query: string | URLSearchParams = "") => withQuery("/api/v1/new-stamp-requests", query),

@@ -3,6 +3,9 @@ export { detectType, sniffContent, scanContentTypes, scanExtensions, scanTypeOfC
 export { checkFileName, downloadFileName, MAX_FILE_NAME_LENGTH } from "./file-name";
 export {
   processScan,
+  processPicture,
+  pictureTypes,
+  type ProcessedPicture,
   decodeGreyRaster,
   encodeGreyRaster,
   defaultScanLimits,

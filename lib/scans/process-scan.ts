@@ -166,6 +166,52 @@ async function reencodeOriginal(
   }
 }
 
+interface CheckedImage {
+  type: ScanType;
+  container: ReturnType<typeof checkContainer>;
+  meta: Metadata;
+  /** Size as displayed, after the orientation tag. */
+  widthPx: number;
+  heightPx: number;
+}
+
+/**
+ * The checks every uploaded picture passes before it is decoded: file name (if given), size, type by magic bytes
+ * (only `types`; SVG and markup refused by name), container structure, declared pixels against `maxPixels`, then
+ * the decoder's own header read under `limitInputPixels`, and the shortest side.
+ */
+async function checkImage(
+  bytes: Buffer,
+  options: Required<ScanLimits> & { fileName?: string; types?: readonly ScanType[] },
+): Promise<CheckedImage> {
+  const { maxBytes, maxPixels, minSidePx } = options;
+  if (options.fileName !== undefined) checkFileName(options.fileName);
+  if (bytes.length === 0) throw new ScanRejected("empty");
+  if (bytes.length > maxBytes) throw new ScanRejected("tooLarge", { sizeBytes: bytes.length, maxBytes });
+  const sniffed = sniffContent(bytes);
+  if (sniffed.kind === "svg") throw new ScanRejected("svgRefused");
+  if (sniffed.kind === "markup") throw new ScanRejected("markupRefused", { markup: sniffed.markup });
+  if (sniffed.kind === "refusedImage") throw new ScanRejected("unsupportedType", { type: sniffed.type });
+  if (sniffed.kind === "unknown") throw new ScanRejected("notAnImage");
+  const type = sniffed.type;
+  if (options.types && !options.types.includes(type)) throw new ScanRejected("unsupportedType", { type });
+  const container = checkContainer(type, bytes);
+  const declared = container.widthPx * container.heightPx;
+  if (declared > maxPixels) throw new ScanRejected("tooManyPixels", { widthPx: container.widthPx, heightPx: container.heightPx, maxPixels });
+  let meta: Metadata;
+  try {
+    meta = await sharp(bytes, decoderOptions(maxPixels)).metadata();
+  } catch (error) {
+    throw decodeFailure(error, { maxPixels });
+  }
+  if (meta.format !== type || !meta.width || !meta.height) throw new ScanRejected("corrupt");
+  if (meta.width * meta.height > maxPixels) throw new ScanRejected("tooManyPixels", { widthPx: meta.width, heightPx: meta.height, maxPixels });
+  const widthPx = meta.autoOrient?.width ?? meta.width;
+  const heightPx = meta.autoOrient?.height ?? meta.height;
+  if (Math.min(widthPx, heightPx) < minSidePx) throw new ScanRejected("tooSmall", { widthPx, heightPx, minSidePx });
+  return { type, container, meta, widthPx, heightPx };
+}
+
 /**
  * Checks, measures and prepares one uploaded scan. In order: file name (if given), size, type by magic bytes
  * (PNG, JPEG, TIFF, WebP only; SVG and markup refused by name), container structure (truncation, data after
@@ -180,32 +226,7 @@ export async function processScan(bytes: Buffer, options: ProcessScanOptions): P
   const minSidePx = options.minSidePx ?? defaultScanLimits.minSidePx;
   if (options.dpiOverride !== undefined) checkDpi(options.dpiOverride);
 
-  const { type, container, meta, widthPx, heightPx } = await timed("check", onStage, async () => {
-    if (options.fileName !== undefined) checkFileName(options.fileName);
-    if (bytes.length === 0) throw new ScanRejected("empty");
-    if (bytes.length > maxBytes) throw new ScanRejected("tooLarge", { sizeBytes: bytes.length, maxBytes });
-    const sniffed = sniffContent(bytes);
-    if (sniffed.kind === "svg") throw new ScanRejected("svgRefused");
-    if (sniffed.kind === "markup") throw new ScanRejected("markupRefused", { markup: sniffed.markup });
-    if (sniffed.kind === "refusedImage") throw new ScanRejected("unsupportedType", { type: sniffed.type });
-    if (sniffed.kind === "unknown") throw new ScanRejected("notAnImage");
-    const type = sniffed.type;
-    const container = checkContainer(type, bytes);
-    const declared = container.widthPx * container.heightPx;
-    if (declared > maxPixels) throw new ScanRejected("tooManyPixels", { widthPx: container.widthPx, heightPx: container.heightPx, maxPixels });
-    let meta: Metadata;
-    try {
-      meta = await sharp(bytes, decoderOptions(maxPixels)).metadata();
-    } catch (error) {
-      throw decodeFailure(error, { maxPixels });
-    }
-    if (meta.format !== type || !meta.width || !meta.height) throw new ScanRejected("corrupt");
-    if (meta.width * meta.height > maxPixels) throw new ScanRejected("tooManyPixels", { widthPx: meta.width, heightPx: meta.height, maxPixels });
-    const widthPx = meta.autoOrient?.width ?? meta.width;
-    const heightPx = meta.autoOrient?.height ?? meta.height;
-    if (Math.min(widthPx, heightPx) < minSidePx) throw new ScanRejected("tooSmall", { widthPx, heightPx, minSidePx });
-    return { type, container, meta, widthPx, heightPx };
-  });
+  const { type, container, meta, widthPx, heightPx } = await timed("check", onStage, () => checkImage(bytes, { maxBytes, maxPixels, minSidePx, fileName: options.fileName }));
 
   const fileDpi = meta.density && Number.isFinite(meta.density) && meta.density > 0 ? Math.round(meta.density * 100) / 100 : null;
   const dpi = options.dpiOverride ?? fileDpi;
@@ -318,4 +339,48 @@ export function encodeGreyRaster(raster: GreyRaster): Promise<Buffer> {
     .toColourspace("b-w")
     .png({ compressionLevel: 6 })
     .toBuffer();
+}
+
+/** Types a picture that is not a stamp scan may have (sketches, finding photos): what every browser shows. */
+export const pictureTypes = ["png", "jpeg", "webp"] as const satisfies readonly ScanType[];
+
+export interface ProcessedPicture {
+  type: (typeof pictureTypes)[number];
+  contentType: string;
+  widthPx: number;
+  heightPx: number;
+  sizeBytes: number;
+  /** The original without metadata (as `ProcessedScan.original`). */
+  original: { bytes: Buffer; contentType: string; reencoded: boolean };
+  /** A WebP thumbnail, long side at most `thumbnailSidePx`. */
+  thumb: ScanThumbnail;
+}
+
+/**
+ * Checks and prepares an uploaded picture that is not a stamp scan (a sketch for a new stamp, a finding's photo):
+ * the same checks as a scan (`checkImage`: magic bytes, container, pixel limit before decoding; PNG, JPEG or
+ * WebP only, TIFF is `unsupportedType`), the original without metadata, and one WebP thumbnail. Nothing is
+ * measured and nothing is stored here.
+ */
+export async function processPicture(bytes: Buffer, options: ScanLimits & { fileName?: string; thumbnailSidePx?: number }): Promise<ProcessedPicture> {
+  const { maxBytes, maxPixels } = options;
+  const minSidePx = options.minSidePx ?? defaultScanLimits.minSidePx;
+  const { type, container, meta, widthPx, heightPx } = await checkImage(bytes, { maxBytes, maxPixels, minSidePx, fileName: options.fileName, types: pictureTypes });
+  const side = options.thumbnailSidePx ?? 512;
+  let thumb: ScanThumbnail;
+  try {
+    const { data, info } = await sharp(bytes, { ...decoderOptions(maxPixels), autoOrient: true })
+      .resize({ width: side, height: side, fit: "inside", withoutEnlargement: true })
+      .webp({ quality: 80, effort: 2 })
+      .toBuffer({ resolveWithObject: true });
+    thumb = { longSidePx: side, widthPx: info.width, heightPx: info.height, contentType: "image/webp", bytes: data };
+  } catch (error) {
+    throw decodeFailure(error, { maxPixels });
+  }
+  const turns = (meta.orientation ?? 1) !== 1;
+  const stripped = turns ? null : container.strip(null);
+  const original = stripped
+    ? { bytes: stripped, contentType: scanContentTypes[type], reencoded: false }
+    : { bytes: await reencodeOriginal(bytes, type, meta, { dpi: null, maxPixels, lossless: container.lossless }), contentType: scanContentTypes[type], reencoded: true };
+  return { type: type as ProcessedPicture["type"], contentType: scanContentTypes[type], widthPx, heightPx, sizeBytes: bytes.length, original, thumb };
 }

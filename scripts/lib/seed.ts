@@ -1,6 +1,7 @@
 import type { Database } from "@/db";
 import { seedPlans } from "../seed/plans";
 import { seedMotifs } from "../seed/motifs";
+import { seedNewStampRequests } from "../seed/requests";
 import { seedRuns } from "../seed/runs";
 import { seedScans } from "../seed/scans";
 import { seedStamps } from "../seed/stamps";
@@ -11,11 +12,13 @@ import { objectStoreFromEnv } from "./object-store-config";
 export async function seedDemo(db: Database) {
   await seedUsers(db);
   await seedStamps(db);
-  await seedScans(db, objectStoreFromEnv());
+  const store = objectStoreFromEnv();
+  await seedScans(db, store);
   await seedWax(db);
   await seedPlans(db);
   await seedMotifs(db);
   await seedRuns(db);
+  await seedNewStampRequests(db, store);
 }
 
 export function printSignIns(appUrl = process.env.APP_URL ?? "http://localhost:3000") {

@@ -117,6 +117,30 @@ describe("the stamp shelf in pictures", () => {
     await expect(page.getByTestId("stamp-pictures").locator("img").count()).resolves.toBe(2);
     await page.close();
   });
+
+  it("has the table's filters: typing a search and choosing a condition change the cards shown, and the address keeps them", async () => {
+    const { appUrl } = testEnv();
+    const designer = await createUser("designer");
+    const page = await browser.newPage();
+    await signInThroughPage(page, designer.email, designer.password);
+    await page.goto(`${appUrl}/stamps/pictures`);
+    const cards = page.getByTestId("stamp-pictures").locator("li");
+    const search = page.getByRole("search").getByLabel("Search", { exact: true });
+    await search.fill(prefix);
+    await page.waitForURL(new RegExp(`[?&]q=${encodeURIComponent(prefix)}`));
+    await expect.poll(() => cards.count(), { timeout: 15_000 }).toBe(3);
+    await search.fill(codes.border);
+    await expect.poll(() => cards.count(), { timeout: 15_000 }).toBe(1);
+    expect(await page.getByTestId("stamp-pictures").textContent()).toContain(codes.border);
+    // Every test stamp is sound: asking for retired ones leaves no card, and says so.
+    await page.getByRole("search").locator("summary", { hasText: "Condition" }).click();
+    await page.getByRole("search").getByLabel("Retired", { exact: true }).check();
+    await page.getByTestId("stamp-pictures-empty").waitFor();
+    expect(page.url()).toMatch(/condition=retired/);
+    await page.reload();
+    await page.getByTestId("stamp-pictures-empty").waitFor();
+    await page.close();
+  });
 });
 
 describe("the motif form", () => {
@@ -129,11 +153,13 @@ describe("the motif form", () => {
     await page.getByLabel("Name", { exact: true }).fill(`${prefix} Form motif`);
     await page.getByLabel("Tags").fill("geometric, stars");
     await page.getByLabel("Stamp set").fill(`${codes.border} border`);
-    await page.getByLabel("Colourways").fill("Night: Undyed #f4efe6 [both]; Indigo #1f3a5f");
+    // One colour a line under its colourway's name.
+    await page.getByLabel("Colourways").fill("Night:\nUndyed #f4efe6 [both]\nIndigo #1f3a5f");
     await page.getByRole("button", { name: "Add motif" }).click();
     await page.waitForURL(/\/motifs\/[0-9a-f-]{36}\?saved=created/);
     await page.getByText("Motif added.").waitFor();
-    expect(await page.getByTestId("motif-colourways").textContent()).toContain("Night");
+    const colourways = await page.getByTestId("motif-colourways").textContent();
+    for (const word of ["Night", "Undyed", "Indigo"]) expect(colourways).toContain(word);
     await page.close();
   });
 

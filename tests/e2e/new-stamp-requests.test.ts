@@ -1,4 +1,5 @@
 import type { Browser } from "playwright-core";
+import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, signInThroughPage } from "../helpers/browser";
 import { createUser } from "../helpers/db";
@@ -60,6 +61,54 @@ describe("new-stamp requests in the browser", () => {
     await keeperPage.getByText("recorded and in the set").waitFor();
     expect(await keeperPage.getByTestId("motif-stamps").textContent()).toContain(`${prefix}-BORD`);
     await keeperPage.close();
+  });
+
+  it("a request filed with a sketch shows the sketch's thumbnail in the keepers' queue", async () => {
+    const { appUrl } = testEnv();
+    const designer = await createUser("designer");
+    const note = `${prefix} corner with a sketch`;
+    const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="300" height="200"><rect width="300" height="200" fill="#f6f1e7"/><circle cx="150" cy="100" r="70" fill="none" stroke="#3b2a1a" stroke-width="12"/></svg>`;
+    const png = await sharp(Buffer.from(svg)).png().toBuffer();
+    const page = await browser.newPage();
+    await signInThroughPage(page, designer.email, designer.password);
+    await page.goto(`${appUrl}/motifs/${motifId}/request-stamp`);
+    await page.getByLabel("Width (mm)").fill("90");
+    await page.getByLabel("Height (mm)").fill("90");
+    await page.getByLabel("Role in the set").selectOption("corner");
+    await page.getByLabel("Note for the maker").fill(note);
+    await page.getByLabel("Sketch (optional)").setInputFiles({ name: "corner-sketch.png", mimeType: "image/png", buffer: png });
+    await page.getByRole("button", { name: "Send the request" }).click();
+    await page.getByText("Request sent").waitFor();
+    await page.close();
+
+    const keeperPage = await browser.newPage();
+    await signInThroughPage(keeperPage, keeper.email, keeper.password);
+    await keeperPage.goto(`${appUrl}/stamps/requests`);
+    const item = keeperPage.locator('li[data-testid^="new-stamp-"]', { hasText: note });
+    const thumb = item.getByRole("img", { name: "Sketch of the stamp asked for" });
+    await thumb.waitFor();
+    // The thumbnail really loaded from the API (a WebP of the 300 × 200 sketch, long side at most 512 px).
+    await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => (img.complete ? img.naturalWidth : 0)), { timeout: 15_000 }).toBe(300);
+    await keeperPage.close();
+  });
+
+  it("refuses a file that is not a picture beside the sketch field, and files nothing", async () => {
+    const { appUrl } = testEnv();
+    const designer = await createUser("designer");
+    const note = `${prefix} sketch that is no picture`;
+    const page = await browser.newPage();
+    await signInThroughPage(page, designer.email, designer.password);
+    await page.goto(`${appUrl}/motifs/${motifId}/request-stamp`);
+    await page.getByLabel("Width (mm)").fill("90");
+    await page.getByLabel("Height (mm)").fill("90");
+    await page.getByLabel("Note for the maker").fill(note);
+    await page.getByLabel("Sketch (optional)").setInputFiles({ name: "sketch.png", mimeType: "image/png", buffer: Buffer.from("these are words, not a picture\n") });
+    await page.getByRole("button", { name: "Send the request" }).click();
+    await expectMessageBeside(page.getByLabel("Sketch (optional)"), /not a picture|image/i);
+    expect(await page.getByLabel("Note for the maker").inputValue()).toBe(note);
+    await page.close();
+    const listed = await api("GET", "/api/v1/new-stamp-requests", { session: keeperSession });
+    expect(listed.body.requests.some((r: { note: string | null }) => r.note === note)).toBe(false);
   });
 
   it("a designer who works in inches asks in inches; the request is kept in mm and the queue shows inches to an imperial keeper", async () => {

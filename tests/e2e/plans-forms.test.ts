@@ -1,3 +1,4 @@
+import sharp from "sharp";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createUser } from "../helpers/db";
@@ -76,8 +77,16 @@ describe("the new-stamp request from the fit helper", () => {
     await expectMessageBeside(dialog.getByLabel("Width (mm)"), /at least|small/i);
     await dialog.getByLabel("Width (mm)").fill("212");
     await dialog.getByLabel("Note for the keepers").fill("For the wider mori");
+    // A sketch that is no picture stands beside the file field; a real one goes with the request.
+    await dialog.getByLabel("Sketch (optional)").setInputFiles({ name: "sketch.png", mimeType: "image/png", buffer: Buffer.from("words, not a picture\n") });
+    await dialog.getByRole("button", { name: "Send the request" }).click();
+    await expectMessageBeside(dialog.getByLabel("Sketch (optional)"), /not an image/);
+    const png = await sharp({ create: { width: 160, height: 120, channels: 3, background: "#3b2a1a" } }).png().toBuffer();
+    await dialog.getByLabel("Sketch (optional)").setInputFiles({ name: "sketch.png", mimeType: "image/png", buffer: png });
     await dialog.getByRole("button", { name: "Send the request" }).click();
     await expect.poll(() => dialog.getByText("The request went to the stamp keepers.").isVisible().catch(() => false), { timeout: 15_000 }).toBe(true);
+    const listed = (await api("GET", "/api/v1/new-stamp-requests", { session: plannerSession })).body.requests as { note: string | null; sketch: { contentType: string } | null }[];
+    expect(listed.find((r) => r.note === "For the wider mori")?.sketch?.contentType).toBe("image/png");
   });
 });
 

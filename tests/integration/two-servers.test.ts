@@ -1,10 +1,15 @@
 import { type ChildProcess, spawn } from "node:child_process";
+import { readFileSync } from "node:fs";
 import { join } from "node:path";
+import PgBoss from "pg-boss";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { checkouts } from "@/db/schema";
+import { JOB_SCHEMA, REMINDERS } from "@/lib/jobs/queues";
 import { waitForPort } from "@/scripts/lib/services";
-import { createUser } from "../helpers/db";
+import { createUser, db } from "../helpers/db";
 import { testEnv } from "../helpers/env";
 import { rawRequest, signIn } from "../helpers/http";
+import { latestMailTo } from "../helpers/mail";
 import { shapeScan } from "../helpers/scan-images";
 import { uploadScan } from "../helpers/scan-upload";
 import { createStampRow, uniquePrefix } from "../helpers/stamps";
@@ -83,4 +88,33 @@ describe("two app servers", () => {
     expect(thumb.status).toBe(200);
     expect((await thumb.arrayBuffer()).byteLength).toBeGreaterThan(100);
   }, 60_000);
+
+  it("runs a job once, though both servers work the queue", async () => {
+    const stamp = await createStampRow({ code: `${prefix}-LATE` });
+    const email = `late-${prefix.toLowerCase()}@example.test`;
+    const yesterday = new Date(Date.now() - 2 * 86_400_000).toISOString().slice(0, 10);
+    await db().insert(checkouts).values({ stampId: stamp.id, borrowerName: "Late borrower", borrowerEmail: email, workstation: "Table 9", dueOn: yesterday });
+    // A client of the queue only (no workers, no schedules): what another service would use to hand work over.
+    const boss = new PgBoss({ connectionString: process.env.DATABASE_URL!, schema: JOB_SCHEMA, supervise: false, schedule: false });
+    await boss.start();
+    try {
+      const queue = await boss.getQueue(REMINDERS);
+      expect(queue).toMatchObject({ retryLimit: 3, retryBackoff: true });
+      const id = (await boss.send(REMINDERS, {}))!;
+      await expect.poll(async () => (await boss.getJobById(REMINDERS, id))?.state, { timeout: 30_000, interval: 250 }).toBe("completed");
+      await latestMailTo(email, /./);
+      // Both servers write to the same log (LOG_FILE): the job ran on exactly one of them, once.
+      const done = readFileSync(process.env.LOG_FILE!, "utf8")
+        .split("\n")
+        .filter(Boolean)
+        .map((l) => JSON.parse(l) as { event?: string; jobId?: string; pid?: number })
+        .filter((l) => l.event === "job.done" && l.jobId === id);
+      expect(done).toHaveLength(1);
+      const { mailUrl } = testEnv();
+      const all = (await (await fetch(`${mailUrl}/api/email`)).json()) as { to: { address: string }[] }[];
+      expect(all.filter((m) => m.to.some((t) => t.address === email))).toHaveLength(1);
+    } finally {
+      await boss.stop({ graceful: false });
+    }
+  }, 90_000);
 });

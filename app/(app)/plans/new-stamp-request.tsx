@@ -6,6 +6,7 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Modal } from "@/components/ui/modal";
 import { Notice } from "@/components/ui/notice";
+import { sketchAccept } from "@/components/motifs/new-stamp-request-form";
 import { initialFormState } from "@/lib/actions/form-state";
 import type { UnitSystem } from "@/lib/stamps/format";
 import { requestNewStampAction } from "../stamps/requests/actions";
@@ -41,6 +42,9 @@ export function NewStampRequestDialog({ widthMm, heightMm, planId, unitSystem, o
             </div>
             <Field id="new-stamp-note" label={t("note")} hint={t("noteHint")} errors={state.fieldErrors?.note}>
               {(aria) => <textarea {...aria} name="note" rows={3} defaultValue={value("note", "")} />}
+            </Field>
+            <Field id="new-stamp-sketch" label={t("sketch")} hint={t("sketchHint")} errors={state.fieldErrors?.sketch}>
+              {(aria) => <input {...aria} type="file" name="sketch" accept={sketchAccept} />}
             </Field>
           </>
         ) : null}

@@ -12,6 +12,7 @@ import * as me from "./me/route";
 import * as newStampRequests from "./new-stamp-requests/route";
 import * as newStampRequestsIdDecline from "./new-stamp-requests/[id]/decline/route";
 import * as newStampRequestsIdStamp from "./new-stamp-requests/[id]/stamp/route";
+import * as newStampRequestsIdSketch from "./new-stamp-requests/[id]/sketch/route";
 import * as openapi from "./openapi.json/route";
 import * as plans from "./plans/route";
 import * as plansStamps from "./plans/stamps/route";
@@ -24,6 +25,7 @@ import * as runsRoute from "./runs/route";
 import * as runsFlaggedStamps from "./runs/flagged-stamps/route";
 import * as runsId from "./runs/[id]/route";
 import * as runsIdFindings from "./runs/[id]/findings/route";
+import * as runsIdFindingsPhoto from "./runs/[id]/findings/[findingId]/photo/route";
 import * as runsIdStagesProgress from "./runs/[id]/stages/[stageId]/progress/route";
 import * as runsIdStagesReadings from "./runs/[id]/stages/[stageId]/readings/route";
 import * as runsIdStagesStampRequest from "./runs/[id]/stages/[stageId]/stamp-request/route";
@@ -98,6 +100,7 @@ export const routeModules: RouteModule[] = [
   { path: "/api/v1/new-stamp-requests", handlers: newStampRequests },
   { path: "/api/v1/new-stamp-requests/{id}/decline", handlers: newStampRequestsIdDecline },
   { path: "/api/v1/new-stamp-requests/{id}/stamp", handlers: newStampRequestsIdStamp },
+  { path: "/api/v1/new-stamp-requests/{id}/sketch", handlers: newStampRequestsIdSketch },
   { path: "/api/v1/openapi.json", handlers: openapi },
   { path: "/api/v1/plans", handlers: plans },
   { path: "/api/v1/plans/stamps", handlers: plansStamps },
@@ -110,6 +113,7 @@ export const routeModules: RouteModule[] = [
   { path: "/api/v1/runs/flagged-stamps", handlers: runsFlaggedStamps },
   { path: "/api/v1/runs/{id}", handlers: runsId },
   { path: "/api/v1/runs/{id}/findings", handlers: runsIdFindings },
+  { path: "/api/v1/runs/{id}/findings/{findingId}/photo", handlers: runsIdFindingsPhoto },
   { path: "/api/v1/runs/{id}/stages/{stageId}/progress", handlers: runsIdStagesProgress },
   { path: "/api/v1/runs/{id}/stages/{stageId}/readings", handlers: runsIdStagesReadings },
   { path: "/api/v1/runs/{id}/stages/{stageId}/stamp-request", handlers: runsIdStagesStampRequest },

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
-import { checkouts, motifCollectionMembers, motifCollections, motifColours, motifColourways, motifEvents, motifs, motifStamps, plans, stampScans, stamps, waxEstimates, type Motif } from "@/db/schema";
+import { checkouts, motifCollectionMembers, motifCollections, motifColours, motifColourways, motifEvents, motifs, motifStamps, plans, runs, stampScans, stamps, waxEstimates, type Motif } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
 import {
@@ -272,11 +272,25 @@ async function writeSet(tx: Transaction, motifId: string, input: { stamps?: Crea
       input.colourways.forEach((cw, i) => cw.colours.forEach((c, j) => c.waxStamps.forEach((code, k) => (ids!.has(code) ? null : (fields[`colourways.${i}.colours.${j}.waxStamps.${k}`] = ["validation.colourStampNotInSet"])))));
       if (Object.keys(fields).length) throw new AppError("validation", {}, fields);
     }
-    await tx.delete(motifColourways).where(eq(motifColourways.motifId, motifId));
+    // A colourway keeps its row (and id) while its name stays: production runs point at it. One left out is
+    // deleted, unless a run follows it (409 colourwayInRuns, naming the runs).
+    const before = await tx.select({ id: motifColourways.id, name: motifColourways.name }).from(motifColourways).where(eq(motifColourways.motifId, motifId));
+    const byName = new Map(before.map((w) => [w.name.toLowerCase(), w.id]));
+    const kept = new Set(input.colourways.flatMap((cw) => (byName.has(cw.name.toLowerCase()) ? [byName.get(cw.name.toLowerCase())!] : [])));
+    const dropped = before.filter((w) => !kept.has(w.id));
+    if (dropped.length) {
+      const following = await tx.select({ name: runs.name }).from(runs).where(inArray(runs.colourwayId, dropped.map((w) => w.id)));
+      if (following.length) throw new AppError("colourwayInRuns", { runs: [...new Set(following.map((r) => r.name))].join(", ") });
+      await tx.delete(motifColourways).where(inArray(motifColourways.id, dropped.map((w) => w.id)));
+    }
     for (const [position, cw] of input.colourways.entries()) {
-      const [way] = await tx.insert(motifColourways).values({ motifId, name: cw.name, notes: cw.notes ?? null, position }).returning({ id: motifColourways.id });
+      let wayId = byName.get(cw.name.toLowerCase());
+      if (wayId) {
+        await tx.update(motifColourways).set({ name: cw.name, notes: cw.notes ?? null, position }).where(eq(motifColourways.id, wayId));
+        await tx.delete(motifColours).where(eq(motifColours.colourwayId, wayId));
+      } else [{ id: wayId }] = await tx.insert(motifColourways).values({ motifId, name: cw.name, notes: cw.notes ?? null, position }).returning({ id: motifColourways.id });
       await tx.insert(motifColours).values(
-        cw.colours.map((c, i) => ({ colourwayId: way.id, position: i, name: c.name, swatch: c.swatch, dyeNotes: c.dyeNotes ?? null, face: c.face, waxStampIds: c.waxStamps.map((code) => ids!.get(code)!) })),
+        cw.colours.map((c, i) => ({ colourwayId: wayId!, position: i, name: c.name, swatch: c.swatch, dyeNotes: c.dyeNotes ?? null, face: c.face, waxStampIds: c.waxStamps.map((code) => ids!.get(code)!) })),
       );
     }
   }

@@ -1,13 +1,21 @@
 import "server-only";
+import { randomUUID } from "node:crypto";
 import { and, desc, eq, inArray, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { motifEvents, motifs, motifStamps, newStampRequests, plans, stamps, type NewStampRequest } from "@/db/schema";
 import { assertCan, type Actor } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
-import type { NewStampRequestDto } from "@/lib/contracts/plans";
+import { requestUrls, type NewStampRequestDto } from "@/lib/contracts/plans";
 import type { CreateNewStampRequestInput, DeclineRequestInput, FulfilNewStampRequestInput } from "@/lib/validation/plans";
 import { createStamp } from "../stamps";
+import { deletePictureQuietly, pictureResponse, storePicture, type PictureVariant } from "../pictures";
 import { mailKeepersAboutNewStamp } from "./mail";
+
+/** A sketch as it arrives: the picture's bytes and the name it came with. */
+export interface SketchUpload {
+  bytes: Uint8Array;
+  fileName?: string;
+}
 
 // New-stamp requests: "make a stamp W × H mm" from a plan's fit helper, for the keepers' queue on the shelf. The
 // motif archive extends them (sketches, roles, motifs, and turning a request into a stamp: state `made`).
@@ -32,6 +40,7 @@ async function toDtos(rows: NewStampRequest[]): Promise<NewStampRequestDto[]> {
     note: r.note,
     state: r.state,
     stamp: r.stampId && stampCode.has(r.stampId) ? { id: r.stampId, code: stampCode.get(r.stampId)! } : null,
+    sketch: r.sketchKey && r.sketchType ? { fileName: r.sketchName, contentType: r.sketchType, urls: { original: requestUrls.sketch(r.id), thumb: requestUrls.sketch(r.id, "thumb") } } : null,
     requesterName: r.requesterName,
     answeredByName: r.answeredByName,
     answeredAt: r.answeredAt?.toISOString() ?? null,
@@ -41,7 +50,11 @@ async function toDtos(rows: NewStampRequest[]): Promise<NewStampRequestDto[]> {
   }));
 }
 
-export async function createNewStampRequest(actor: Actor, input: CreateNewStampRequestInput): Promise<NewStampRequestDto> {
+/**
+ * Files a new-stamp request, with its sketch when one comes along: the sketch is checked (like a scan) and stored
+ * before the row is written, so a refused picture (ScanRejected) leaves neither a request nor an object behind.
+ */
+export async function createNewStampRequest(actor: Actor, input: CreateNewStampRequestInput, sketch?: SketchUpload): Promise<NewStampRequestDto> {
   assertCan(actor, "stamps:requestNew");
   if (input.planId) {
     const [plan] = await db.select({ id: plans.id }).from(plans).where(eq(plans.id, input.planId));
@@ -51,22 +64,85 @@ export async function createNewStampRequest(actor: Actor, input: CreateNewStampR
     const [motif] = await db.select({ id: motifs.id }).from(motifs).where(eq(motifs.id, input.motifId));
     if (!motif) throw new AppError("unprocessable", {}, { motifId: ["validation.motifUnknown"] });
   }
-  const [row] = await db
-    .insert(newStampRequests)
-    .values({
-      widthMm: input.widthMm,
-      heightMm: input.heightMm,
-      planId: input.planId ?? null,
-      motifId: input.motifId ?? null,
-      role: input.motifId ? (input.role ?? null) : null,
-      note: input.note ?? null,
-      requestedBy: actor.id,
-      requesterName: actor.name,
-    })
-    .returning();
+  const id = randomUUID();
+  const picture = sketch ? await storePicture("sketches", id, sketch.bytes, sketch.fileName) : null;
+  let row: NewStampRequest;
+  try {
+    [row] = await db
+      .insert(newStampRequests)
+      .values({
+        id,
+        widthMm: input.widthMm,
+        heightMm: input.heightMm,
+        planId: input.planId ?? null,
+        motifId: input.motifId ?? null,
+        role: input.motifId ? (input.role ?? null) : null,
+        note: input.note ?? null,
+        ...(picture ? { sketchKey: picture.key, sketchType: picture.contentType, sketchName: sketch?.fileName ?? null } : {}),
+        requestedBy: actor.id,
+        requesterName: actor.name,
+      })
+      .returning();
+  } catch (error) {
+    await deletePictureQuietly(picture?.key);
+    throw error;
+  }
   const [dto] = await toDtos([row]);
   await mailKeepersAboutNewStamp(dto);
   return dto;
+}
+
+/**
+ * Attaches (or replaces) the sketch of an open request: whoever may ask for new stamps. The picture is checked
+ * and stored first, then the row takes its key in a locked update (version + 1); the old sketch's objects go
+ * after the change is saved, the new ones when it is refused (answered, or a request that is gone).
+ */
+export async function attachNewStampSketch(actor: Actor, id: string, sketch: SketchUpload): Promise<NewStampRequestDto> {
+  assertCan(actor, "stamps:requestNew");
+  const [existing] = await db.select({ id: newStampRequests.id, state: newStampRequests.state }).from(newStampRequests).where(eq(newStampRequests.id, id));
+  if (!existing) throw new AppError("notFound");
+  if (existing.state !== "open") throw new AppError("requestAnswered", { state: existing.state });
+  const picture = await storePicture("sketches", id, sketch.bytes, sketch.fileName);
+  let previous: string | null = null;
+  try {
+    const row = await db.transaction(async (tx) => {
+      const [r] = await tx.select().from(newStampRequests).where(eq(newStampRequests.id, id)).for("update");
+      if (!r) throw new AppError("notFound");
+      if (r.state !== "open") throw new AppError("requestAnswered", { state: r.state });
+      previous = r.sketchKey;
+      const [updated] = await tx
+        .update(newStampRequests)
+        .set({ sketchKey: picture.key, sketchType: picture.contentType, sketchName: sketch.fileName ?? null, version: sql`${newStampRequests.version} + 1`, updatedAt: sql`now()` })
+        .where(eq(newStampRequests.id, id))
+        .returning();
+      return updated;
+    });
+    await deletePictureQuietly(previous);
+    return (await toDtos([row]))[0];
+  } catch (error) {
+    await deletePictureQuietly(picture.key);
+    throw error;
+  }
+}
+
+/** A request's sketch (or its WebP thumbnail), streamed; everyone signed in may look, as at the queue. */
+export async function newStampSketch(actor: Actor, id: string, variant: PictureVariant): Promise<Response> {
+  assertCan(actor, "data:read");
+  const [r] = await db.select({ key: newStampRequests.sketchKey, type: newStampRequests.sketchType }).from(newStampRequests).where(eq(newStampRequests.id, id));
+  if (!r?.key) throw new AppError("notFound");
+  return pictureResponse("sketches", id, r.key, variant, { contentType: r.type });
+}
+
+/** The request a stamp was made from, when it had a sketch: the stamp record links to it. */
+export async function sketchOfStamp(actor: Actor, stampId: string): Promise<{ requestId: string; urls: { original: string; thumb: string } } | null> {
+  assertCan(actor, "data:read");
+  const [r] = await db
+    .select({ id: newStampRequests.id })
+    .from(newStampRequests)
+    .where(and(eq(newStampRequests.stampId, stampId), sql`${newStampRequests.sketchKey} is not null`))
+    .orderBy(desc(newStampRequests.createdAt))
+    .limit(1);
+  return r ? { requestId: r.id, urls: { original: requestUrls.sketch(r.id), thumb: requestUrls.sketch(r.id, "thumb") } } : null;
 }
 
 export async function getNewStampRequest(actor: Actor, id: string): Promise<NewStampRequestDto> {

@@ -11,6 +11,7 @@ import { Notice } from "@/components/ui/notice";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { listLocations } from "@/lib/data/stamps/locations";
 import { getStamp, listBorrowers, stampHistory } from "@/lib/data/stamps";
+import { sketchOfStamp } from "@/lib/data/requests";
 import type { StampDto } from "@/lib/contracts/stamps";
 import { AppError } from "@/lib/errors";
 import { can } from "@/lib/permissions";
@@ -48,12 +49,13 @@ export default async function StampPage({ params, searchParams }: Props) {
   const { saved } = await searchParams;
   const stamp = await load(code, () => getStamp(actor, stampCodeSchema.parse(code)));
   const canWrite = can(actor.role, "stamps:write");
-  const [t, format, history, locations, borrowers] = await Promise.all([
+  const [t, format, history, locations, borrowers, sketch] = await Promise.all([
     getTranslations(),
     getFormatter(),
     stampHistory(actor, stamp.code),
     canWrite ? listLocations(actor) : [],
     canWrite ? listBorrowers(actor) : [],
+    sketchOfStamp(actor, stamp.id),
   ]);
   const units = actor.unitSystem;
   const measure = measures(format, units);
@@ -92,6 +94,16 @@ export default async function StampPage({ params, searchParams }: Props) {
         </span>
       ),
     ],
+    ...(sketch
+      ? ([
+          [
+            t("requests.madeFromSketch"),
+            <a key="sketch" href={sketch.urls.original} target="_blank" rel="noreferrer" className="text-ink-700 hover:underline" data-testid="made-from-sketch">
+              {t("requests.queue.openSketch")}
+            </a>,
+          ],
+        ] as [string, React.ReactNode][])
+      : []),
     [t("stamps.fields.maker"), stamp.maker ?? none],
     [t("stamps.fields.madeOn"), stamp.madeOn ? day(stamp.madeOn) : none],
     [

@@ -3,10 +3,14 @@ import Link from "next/link";
 import { getTranslations } from "next-intl/server";
 import { Forbidden } from "@/components/shell/forbidden";
 import { ConditionBadge } from "@/components/stamps/condition-badge";
+import { PictureFilters } from "@/components/stamps/picture-filters";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/panel";
 import { newestThumbs } from "@/lib/data/scans";
-import { listStamps } from "@/lib/data/stamps";
+import { listStamps, stampFacets } from "@/lib/data/stamps";
+import { listLocations } from "@/lib/data/stamps/locations";
+import { issueFields } from "@/lib/error-body";
+import { translator } from "@/lib/i18n/translator";
 import { can } from "@/lib/permissions";
 import { requirePageActor } from "@/lib/session";
 import { queryObject } from "@/lib/validation/common";
@@ -26,7 +30,9 @@ export default async function StampPicturesPage({ searchParams }: { searchParams
   const t = await getTranslations();
   const parsed = parseInput(stampListQuerySchema, { pageSize: "60", ...queryObject(params) });
   const page = parsed.success ? await listStamps(actor, parsed.data) : null;
-  const thumbs = page ? await newestThumbs(actor, page.stamps.map((s) => s.code)) : {};
+  const [thumbs, locations, facets] = await Promise.all([page ? newestThumbs(actor, page.stamps.map((s) => s.code)) : ({} as Record<string, string>), listLocations(actor), stampFacets(actor)]);
+  // A refused filter (a minimum above its maximum) says so beside its boxes, as on the table.
+  const refused = parsed.success ? {} : issueFields(parsed.error.issues, translator(actor.locale));
   const query = params.toString();
   return (
     <>
@@ -39,8 +45,13 @@ export default async function StampPicturesPage({ searchParams }: { searchParams
           </Link>
         }
       />
+      <PictureFilters locations={locations} sites={facets.sites} unitSystem={actor.unitSystem} refused={refused} />
       {!page ? (
         <Notice tone="error">{t("motifs.list.refused")}</Notice>
+      ) : page.stamps.length === 0 ? (
+        <p className="text-sm text-stone-600" data-testid="stamp-pictures-empty">
+          {t("stamps.table.noMatch")}
+        </p>
       ) : (
         <ul className="grid grid-cols-2 gap-3 sm:grid-cols-4 lg:grid-cols-6" data-testid="stamp-pictures">
           {page.stamps.map((s) => (

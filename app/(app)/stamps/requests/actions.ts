@@ -1,6 +1,6 @@
 "use server";
 
-import { getTranslations } from "next-intl/server";
+import { getLocale, getTranslations } from "next-intl/server";
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import type { FormState } from "@/lib/actions/form-state";
@@ -9,6 +9,10 @@ import { declineFormInput, newStampRequestFormInput } from "@/lib/contracts/plan
 import { stampFormInput } from "@/lib/contracts/stamps";
 import { formText } from "@/lib/contracts/form-input";
 import { acceptStampRequest, createNewStampRequest, declineNewStampRequest, declineStampRequest, fulfilNewStampRequest } from "@/lib/data/requests";
+import { errorAnswer } from "@/lib/error-body";
+import { pickLocale } from "@/lib/i18n/config";
+import { translator } from "@/lib/i18n/translator";
+import { ScanRejected } from "@/lib/scans/errors";
 import { requirePermission } from "@/lib/session";
 import { z } from "@/lib/zod";
 import { acceptRequestSchema, createNewStampRequestSchema, declineRequestSchema, fulfilNewStampRequestSchema } from "@/lib/validation/plans";
@@ -83,8 +87,19 @@ export async function fulfilNewStampAction(_prev: FormState, formData: FormData)
 }
 
 /**
+ * The form's optional "sketch" file: its bytes and name, or nothing when no file was chosen (a browser sends an
+ * empty part for an empty file box, so an empty file counts as none).
+ */
+async function sketchOf(formData: FormData) {
+  const file = formData.get("sketch");
+  if (!file || typeof file === "string" || file.size === 0) return undefined;
+  return { bytes: new Uint8Array(await file.arrayBuffer()), fileName: file.name || undefined };
+}
+
+/**
  * A new-stamp request, from the planner's fit helper ("make a stamp W wide") or from a motif (its role in the set):
- * one action for both forms; the motif's form thanks in the archive's words, the planner's in its own.
+ * one action for both forms; the motif's form thanks in the archive's words, the planner's in its own. A sketch
+ * the picture checks refuse stands beside the file field, and nothing is filed.
  */
 export async function requestNewStampAction(_prev: FormState, formData: FormData): Promise<FormState> {
   return runForm(
@@ -92,11 +107,17 @@ export async function requestNewStampAction(_prev: FormState, formData: FormData
     createNewStampRequestSchema,
     async (input) => {
       const actor = await requirePermission("stamps:requestNew");
-      await createNewStampRequest(actor, input);
+      try {
+        await createNewStampRequest(actor, input, await sketchOf(formData));
+      } catch (error) {
+        if (!(error instanceof ScanRejected)) throw error;
+        const t = translator(pickLocale(await getLocale()));
+        return { status: "error", message: t("common.formHasErrors"), fieldErrors: { sketch: [errorAnswer(error, t).body.error.message] } };
+      }
       revalidatePath("/stamps/requests");
       const message = input.motifId ? (await getTranslations("requests"))("ask.sent") : (await getTranslations("plans.newStamp"))("sent");
       return { status: "success", message };
     },
-    newStampRequestFormInput,
+    (f, locale) => newStampRequestFormInput(f, locale),
   );
 }

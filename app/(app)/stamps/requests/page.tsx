@@ -95,6 +95,12 @@ export default async function RequestQueuePage() {
                       </p>
                     ) : null}
                     {n.note ? <p className="text-sm text-stone-600">{t("requests.queue.note", { note: n.note })}</p> : null}
+                    {n.sketch ? (
+                      <a href={n.sketch.urls.original} target="_blank" rel="noreferrer" className="inline-block" data-testid="sketch" aria-label={t("requests.queue.openSketch")}>
+                        {/* eslint-disable-next-line @next/next/no-img-element -- the sketch streams from our API with the session cookie */}
+                        <img src={n.sketch.urls.thumb} alt={t("requests.queue.sketchAlt")} loading="lazy" className="h-28 w-28 rounded border border-stone-200 bg-white object-contain" />
+                      </a>
+                    ) : null}
                     {keeper ? (
                       <Link href={`/stamps/requests/${n.id}/stamp`} className="inline-block rounded-md bg-ink-700 px-3 py-1.5 text-sm font-medium text-white hover:bg-ink-800" data-testid="make-stamp">
                         {t("requests.make.action")}

@@ -32,6 +32,12 @@ export default async function MakeStampPage({ params }: { params: Promise<{ id: 
   return (
     <>
       <PageHeader title={t("requests.make.title")} intro={intro} />
+      {request.sketch ? (
+        <a href={request.sketch.urls.original} target="_blank" rel="noreferrer" className="mb-4 inline-block" data-testid="sketch" aria-label={t("requests.queue.openSketch")}>
+          {/* eslint-disable-next-line @next/next/no-img-element -- the sketch streams from our API with the session cookie */}
+          <img src={request.sketch.urls.thumb} alt={t("requests.queue.sketchAlt")} className="h-40 w-40 rounded border border-stone-200 bg-white object-contain" />
+        </a>
+      ) : null}
       {request.state !== "open" ? (
         <Notice tone="error">{t("errors.requestAnswered", { state: t(`requests.newStates.${request.state}`) })}</Notice>
       ) : (
