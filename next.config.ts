@@ -3,7 +3,7 @@ import createNextIntlPlugin from "next-intl/plugin";
 
 const withNextIntl = createNextIntlPlugin("./lib/i18n/request.ts");
 
-// Forms that carry a picture (a new-stamp request's sketch) post it to a server action: the action's body may be as
+// Forms that carry a picture (a new-stamp request's sketch, a quality finding's photo) post it to a server action: the action's body may be as
 // large as a scan (SCAN_MAX_BYTES, else lib/scans' default of 200 MiB) plus room for the other fields and the
 // multipart framing. The picture itself is checked against the scan limit by lib/scans.
 const scanMaxBytes = Number(process.env.SCAN_MAX_BYTES) || 200 * 1024 * 1024;
@@ -16,9 +16,6 @@ const nextConfig: NextConfig = {
   turbopack: { resolveAlias: { module: { browser: "./lib/layout/polygon/browser-module-stub.ts" } } },
   experimental: { serverActions: { bodySizeLimit: scanMaxBytes + 1024 * 1024 } },
   poweredByHeader: false,
-  // A quality finding's photo travels with its form (lib/actions/run-records.ts): above Next's 1 MB default, as
-  // phones take them; the form refuses a larger file beside its field (FINDING_PHOTO_MAX_BYTES).
-  experimental: { serverActions: { bodySizeLimit: "8mb" } },
   typedRoutes: false,
   // The test run builds into its own folder so it never disturbs a running `npm start`.
   distDir: process.env.NEXT_DIST_DIR || ".next",

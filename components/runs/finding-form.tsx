@@ -1,7 +1,7 @@
 "use client";
 
 import { useTranslations } from "next-intl";
-import { useActionState, useState } from "react";
+import { useActionState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
@@ -9,12 +9,6 @@ import { Select } from "@/components/ui/select";
 import { recordFindingAction } from "@/lib/actions/run-records";
 import { initialFormState } from "@/lib/actions/form-state";
 import { findingKinds, repairs, stageNumber, type RunDto } from "@/lib/contracts/runs";
-
-/**
- * The largest photo the form sends: the form's post may be at most 8 MB (serverActions.bodySizeLimit in
- * next.config.ts), so a larger photo is refused here, beside its field, with room for the other fields.
- */
-export const FINDING_PHOTO_MAX_BYTES = 7 * 1024 * 1024;
 
 /**
  * Records a quality finding: the day, its kind, the stage, where on the cloth, how many, the stamp it came from
@@ -26,21 +20,12 @@ export function FindingForm({ run, today }: { run: RunDto; today: string }) {
   const tr = useTranslations("runs.repair");
   const ts = useTranslations("runs.stageKind");
   const [state, formAction, pending] = useActionState(recordFindingAction, initialFormState);
-  const [photoError, setPhotoError] = useState<string | null>(null);
   const failed = state.status === "error";
   const v = (name: string, fallback = "") => (failed ? (state.values?.[name] ?? "") : fallback);
   const e = state.fieldErrors ?? {};
-  const photoErrors = photoError ? [photoError] : e.photo;
   return (
     <form
       action={formAction}
-      onSubmit={(ev) => {
-        const photo = new FormData(ev.currentTarget).get("photo");
-        if (photo instanceof File && photo.size > FINDING_PHOTO_MAX_BYTES) {
-          ev.preventDefault();
-          setPhotoError(t("photoTooBig", { maxMb: FINDING_PHOTO_MAX_BYTES / 1024 / 1024 }));
-        } else setPhotoError(null);
-      }}
       className="space-y-4"
       aria-label={t("formLabel")}
       noValidate
@@ -80,8 +65,8 @@ export function FindingForm({ run, today }: { run: RunDto; today: string }) {
         <Field id="finding-repair-note" label={t("repairNote")} errors={e.repairNote}>
           {(aria) => <input {...aria} name="repairNote" autoComplete="off" defaultValue={v("repairNote")} />}
         </Field>
-        <Field id="finding-photo" label={t("photo")} hint={t("photoHint")} errors={photoErrors}>
-          {(aria) => <input {...aria} name="photo" type="file" accept="image/png,image/jpeg,image/webp" onChange={() => setPhotoError(null)} />}
+        <Field id="finding-photo" label={t("photo")} hint={t("photoHint")} errors={e.photo}>
+          {(aria) => <input {...aria} name="photo" type="file" accept="image/png,image/jpeg,image/webp" />}
         </Field>
       </div>
       <Button type="submit" disabled={pending}>

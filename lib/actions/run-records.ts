@@ -2,6 +2,7 @@
 
 import { getLocale, getTranslations } from "next-intl/server";
 import { revalidatePath } from "next/cache";
+import { unstable_rethrow } from "next/navigation";
 import type { FormState } from "@/lib/actions/form-state";
 import { runForm } from "@/lib/actions/run-form";
 import { formText } from "@/lib/contracts/form-input";
@@ -87,9 +88,12 @@ export async function recordFindingAction(_prev: FormState, formData: FormData):
         try {
           await attachFindingPhoto(actor, runId, finding.id, new Uint8Array(await photo.arrayBuffer()), photo.name || undefined);
         } catch (error) {
+          // The finding stands; the photo's refusal stands beside the photo field (and the form says so).
+          unstable_rethrow(error);
           const reason = errorAnswer(error, translator(pickLocale(await getLocale()))).body.error.message;
           said.push(t("photoRefused", { reason }));
           data.photoRefused = "true";
+          return { status: "success", message: said.join(" "), data, fieldErrors: { photo: [reason] } };
         }
       }
       return { status: "success", message: said.join(" "), data };

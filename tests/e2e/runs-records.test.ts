@@ -1,6 +1,6 @@
 import type { Browser, Locator, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { RunDto, RunStageDto } from "@/lib/contracts/runs";
+import { runUrls, type RunDto, type RunStageDto } from "@/lib/contracts/runs";
 import { seedMotifs } from "@/scripts/seed/motifs";
 import { seedPlans } from "@/scripts/seed/plans";
 import { seedRuns } from "@/scripts/seed/runs";
@@ -13,6 +13,7 @@ import { createUser, db } from "../helpers/db";
 import { testEnv } from "../helpers/env";
 import { expectMessageBeside } from "../helpers/forms";
 import { api, signIn, type Session } from "../helpers/http";
+import { seededNoisePng } from "../helpers/scan-images";
 import { uniquePrefix } from "../helpers/stamps";
 
 // The run page's record forms on the demo run in work ("Market cream and soga, 30 m"): a wax master records a
@@ -275,18 +276,41 @@ describe("quality findings on the run page", () => {
     await page.context().close();
   });
 
-  it("refuses a photo larger than the form can send beside the photo field, before anything is recorded", async () => {
+  it("keeps a finding whose file is no picture, saying beside the photo field that the photo was not stored", async () => {
     const before = (await getRun()).findings.length;
     const page = await pageAs(keeper);
     await go(page, `/runs/${runId}`);
     const form = page.getByRole("form", { name: "Record a quality finding" });
-    await form.getByLabel("Where on the cloth").fill(`${prefix} big photo`);
-    // 7.5 MiB: above the 7 MiB the form sends (FINDING_PHOTO_MAX_BYTES in components/runs/finding-form.tsx).
-    await form.getByLabel("Photo").setInputFiles({ name: "finding.jpg", mimeType: "image/jpeg", buffer: Buffer.alloc(7.5 * 1024 * 1024, 0xff) });
+    const where = `${prefix} no picture`;
+    await form.getByLabel("Where on the cloth").fill(where);
+    await form.getByLabel("Photo").setInputFiles({ name: "finding.jpg", mimeType: "image/jpeg", buffer: Buffer.from("these bytes are no picture at all") });
     await form.getByRole("button", { name: "Record finding" }).click();
-    await expectMessageBeside(form.getByLabel("Photo"), /The photo is larger than 7 MB; choose a smaller one/);
-    expect(await form.getByLabel("Where on the cloth").inputValue()).toBe(`${prefix} big photo`);
-    expect((await getRun()).findings).toHaveLength(before);
+    await expectMessageBeside(form.getByLabel("Photo"), /Upload a PNG, JPEG or WebP picture/);
+    expect(await form.getByRole("status").filter({ hasText: "Finding recorded." }).textContent()).toMatch(/The photo was not stored: /);
+    await page.getByTestId("finding-row").filter({ hasText: where }).waitFor();
+    const run = await getRun();
+    expect(run.findings).toHaveLength(before + 1);
+    expect(run.findings.find((f) => f.location === where)!.photoKey).toBeNull();
+    await page.context().close();
+  });
+
+  it("records a finding with its photo: the list shows the photo's thumbnail", async () => {
+    const page = await pageAs(keeper);
+    await go(page, `/runs/${runId}`);
+    const form = page.getByRole("form", { name: "Record a quality finding" });
+    const where = `${prefix} with a photo`;
+    await form.getByLabel("Kind").selectOption("cracked");
+    await form.getByLabel("Where on the cloth").fill(where);
+    await form.getByLabel("Photo").setInputFiles({ name: "finding.png", mimeType: "image/png", buffer: await seededNoisePng(800, 600, { mean: 150, sigma: 40 }) });
+    await form.getByRole("button", { name: "Record finding" }).click();
+    await form.getByText("Finding recorded.").waitFor();
+    const row = page.getByTestId("finding-row").filter({ hasText: where });
+    const thumb = row.getByRole("img", { name: /^Photo of the finding: Unwanted cracks/ });
+    await thumb.waitFor();
+    await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0)).toBe(true);
+    const finding = (await getRun()).findings.find((f) => f.location === where)!;
+    expect(finding.photoKey).toBeTruthy();
+    expect(await thumb.getAttribute("src")).toBe(runUrls.findingPhoto(runId, finding.id, "thumb"));
     await page.context().close();
   });
 });
