@@ -2,12 +2,13 @@
 
 import Link from "next/link";
 import { useLocale, useTranslations } from "next-intl";
-import { useActionState, useState } from "react";
+import { useActionState } from "react";
 import { Button } from "@/components/ui/button";
 import { ConfirmButton } from "@/components/ui/confirm-button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { Select } from "@/components/ui/select";
+import { RunSizeFields } from "./run-size-fields";
 import { initialFormState, type FormState } from "@/lib/actions/form-state";
 import { numberInput } from "@/lib/contracts/form-input";
 import { runPages, runStates, type RunDto } from "@/lib/contracts/runs";
@@ -23,7 +24,6 @@ export function RunEditForm({ action, deleteAction, run }: { action: Action; del
   const failed = state.status === "error";
   const e = state.fieldErrors ?? {};
   const v = (name: string, current: string) => (failed ? (state.values?.[name] ?? "") : current);
-  const [sizeBy, setSizeBy] = useState<"metres" | "pieces">(run.size.pieces ? "pieces" : "metres");
   const k = (name: string) => `${name}-${state.status}`;
   return (
     <div className="max-w-2xl space-y-8">
@@ -37,31 +37,7 @@ export function RunEditForm({ action, deleteAction, run }: { action: Action; del
         <Field id="edit-cloth" label={t("runs.form.cloth")} errors={e.cloth}>
           {(aria) => <input {...aria} name="cloth" defaultValue={v("cloth", run.cloth)} key={k("cloth")} />}
         </Field>
-        <fieldset className="space-y-3">
-          <legend className="text-sm font-medium text-stone-800">{t("runs.form.sizeBy")}</legend>
-          <div className="flex gap-4 text-sm">
-            <label className="flex items-center gap-1.5">
-              <input type="radio" name="sizeBy" value="metres" checked={sizeBy === "metres"} onChange={() => setSizeBy("metres")} /> {t("runs.form.byMetres")}
-            </label>
-            <label className="flex items-center gap-1.5">
-              <input type="radio" name="sizeBy" value="pieces" checked={sizeBy === "pieces"} onChange={() => setSizeBy("pieces")} /> {t("runs.form.byPieces")}
-            </label>
-          </div>
-          {sizeBy === "metres" ? (
-            <Field id="edit-metres" label={t("runs.form.metres")} errors={e.metres}>
-              {(aria) => <input {...aria} name="metres" inputMode="decimal" defaultValue={v("metres", numberInput(run.size.metres ?? run.size.totalMetres, locale))} key={k("metres")} />}
-            </Field>
-          ) : (
-            <div className="grid gap-3 sm:grid-cols-2">
-              <Field id="edit-pieces" label={t("runs.form.pieces")} errors={e.pieces ?? e.metres}>
-                {(aria) => <input {...aria} name="pieces" inputMode="numeric" defaultValue={v("pieces", numberInput(run.size.pieces, locale))} key={k("pieces")} />}
-              </Field>
-              <Field id="edit-piece-length" label={t("runs.form.pieceLength")} errors={e.pieceLengthMm}>
-                {(aria) => <input {...aria} name="pieceLengthCm" inputMode="decimal" defaultValue={v("pieceLengthCm", numberInput(run.size.pieceLengthMm === null ? null : run.size.pieceLengthMm / 10, locale))} key={k("pieceLengthCm")} />}
-              </Field>
-            </div>
-          )}
-        </fieldset>
+        <RunSizeFields idPrefix="edit" errors={e} values={{ metres: v("metres", numberInput(run.size.metres ?? run.size.totalMetres, locale)), pieces: v("pieces", numberInput(run.size.pieces, locale)), pieceLengthCm: v("pieceLengthCm", numberInput(run.size.pieceLengthMm === null ? null : run.size.pieceLengthMm / 10, locale)) }} initialSizeBy={(failed ? state.values?.sizeBy : run.size.pieces ? "pieces" : "metres") === "pieces" ? "pieces" : "metres"} stateKey={state.status} />
         <Field id="edit-due" label={t("runs.form.dueOn")} errors={e.dueOn}>
           {(aria) => <input {...aria} type="date" name="dueOn" defaultValue={v("dueOn", run.dueOn ?? "")} key={k("dueOn")} />}
         </Field>

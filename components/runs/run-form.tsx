@@ -2,11 +2,12 @@
 
 import Link from "next/link";
 import { useTranslations } from "next-intl";
-import { useActionState, useState } from "react";
+import { useActionState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { Select } from "@/components/ui/select";
+import { RunSizeFields } from "./run-size-fields";
 import { initialFormState, type FormState } from "@/lib/actions/form-state";
 import { runPages } from "@/lib/contracts/runs";
 
@@ -44,7 +45,6 @@ export function RunForm({
   const failed = state.status === "error";
   const e = state.fieldErrors ?? {};
   const v = (name: string, fallback = "") => (failed ? (state.values?.[name] ?? fallback) : fallback);
-  const [sizeBy, setSizeBy] = useState<"metres" | "pieces">((failed ? state.values?.sizeBy : undefined) === "pieces" ? "pieces" : "metres");
   const chosen = motif.colourways.find((c) => c.id === colourwayId) ?? motif.colourways[0];
   const k = (name: string) => `${name}-${state.status}`;
   return (
@@ -69,31 +69,7 @@ export function RunForm({
           </>
         )}
       </Field>
-      <fieldset className="space-y-3">
-        <legend className="text-sm font-medium text-stone-800">{t("runs.form.sizeBy")}</legend>
-        <div className="flex gap-4 text-sm">
-          <label className="flex items-center gap-1.5">
-            <input type="radio" name="sizeBy" value="metres" checked={sizeBy === "metres"} onChange={() => setSizeBy("metres")} /> {t("runs.form.byMetres")}
-          </label>
-          <label className="flex items-center gap-1.5">
-            <input type="radio" name="sizeBy" value="pieces" checked={sizeBy === "pieces"} onChange={() => setSizeBy("pieces")} /> {t("runs.form.byPieces")}
-          </label>
-        </div>
-        {sizeBy === "metres" ? (
-          <Field id="run-metres" label={t("runs.form.metres")} errors={e.metres}>
-            {(aria) => <input {...aria} name="metres" inputMode="decimal" defaultValue={v("metres")} key={k("metres")} />}
-          </Field>
-        ) : (
-          <div className="grid gap-3 sm:grid-cols-2">
-            <Field id="run-pieces" label={t("runs.form.pieces")} hint={t("runs.form.piecesHint")} errors={e.pieces ?? e.metres}>
-              {(aria) => <input {...aria} name="pieces" inputMode="numeric" defaultValue={v("pieces")} key={k("pieces")} />}
-            </Field>
-            <Field id="run-piece-length" label={t("runs.form.pieceLength")} errors={e.pieceLengthMm}>
-              {(aria) => <input {...aria} name="pieceLengthCm" inputMode="decimal" defaultValue={v("pieceLengthCm", "250")} key={k("pieceLengthCm")} />}
-            </Field>
-          </div>
-        )}
-      </fieldset>
+      <RunSizeFields idPrefix="run" errors={e} values={{ metres: v("metres"), pieces: v("pieces"), pieceLengthCm: v("pieceLengthCm", "250") }} initialSizeBy={(failed ? state.values?.sizeBy : undefined) === "pieces" ? "pieces" : "metres"} stateKey={state.status} />
       <div className="grid gap-3 sm:grid-cols-2">
         <Field id="run-start" label={t("runs.form.startOn")} hint={t("runs.form.startHint")} errors={e.startOn}>
           {(aria) => <input {...aria} type="date" name="startOn" defaultValue={v("startOn", today)} key={k("startOn")} />}
