@@ -3,7 +3,7 @@ import createNextIntlPlugin from "next-intl/plugin";
 
 const withNextIntl = createNextIntlPlugin("./lib/i18n/request.ts");
 
-// Forms that carry a picture (a new-stamp request's sketch) post it to a server action: the action's body may be as
+// Forms that carry a picture (a new-stamp request's sketch, a quality finding's photo) post it to a server action: the action's body may be as
 // large as a scan (SCAN_MAX_BYTES, else lib/scans' default of 200 MiB) plus room for the other fields and the
 // multipart framing. The picture itself is checked against the scan limit by lib/scans.
 const scanMaxBytes = Number(process.env.SCAN_MAX_BYTES) || 200 * 1024 * 1024;

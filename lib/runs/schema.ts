@@ -104,7 +104,7 @@ export const progressInputSchema = z
       if (p.potBeforeG === undefined) ctx.addIssue({ code: "custom", path: ["potBeforeG"], message: "validation.required" });
       if (p.potAfterG === undefined) ctx.addIssue({ code: "custom", path: ["potAfterG"], message: "validation.required" });
       if (p.potBeforeG !== undefined && p.potAfterG !== undefined && p.potAfterG > p.potBeforeG + (p.potAddedG ?? 0)) {
-        ctx.addIssue({ code: "custom", path: ["potAfterG"], message: "wax.potGained" });
+        ctx.addIssue({ code: "custom", path: ["potAfterG"], message: "wax.potGained", params: { beforeG: p.potBeforeG } });
       }
     }
   });

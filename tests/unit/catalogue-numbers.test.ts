@@ -24,6 +24,8 @@ const textArguments = new Set([
   "stages",
   // production runs' screens: masses written by the unit helpers, a stage's label
   "estimated", "used", "wax", "label", "runs",
+  // a run's stage work: masses written by measures() before they reach the message, and a colour's name
+  "recovered", "before", "after", "added", "colour",
   "amount", "cloth", "currency", "day", "density", "flash", "grams", "level", "limit", "metres", "onHand", "price", "rate", "recipe", "se",
 ]);
 
