@@ -107,6 +107,8 @@ describe("a planner and production runs", () => {
     expect(await stamp.textContent()).toContain(codes.main);
     expect(await stamp.getAttribute("data-free")).toBe("yes");
     expect(await stamp.textContent()).toMatch(/free on these days/);
+    // A run with hot work shows the wax cautions to everyone who opens it (SPEC 5.3).
+    expect(await page.locator('[data-testid="wax-safety"][data-variant="page"]').getByTestId("wax-safety-decides").textContent()).toMatch(/safety data sheet/);
     // The time line draws every stage on its days.
     expect(await page.getByTestId("timeline-stage").count()).toBe(4);
 

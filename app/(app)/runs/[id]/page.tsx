@@ -8,6 +8,7 @@ import { runSizeText } from "@/components/runs/run-size";
 import { StageCard } from "@/components/runs/stage-card";
 import { StageWork, type RunAbilities } from "@/components/runs/stage-work";
 import { Notice } from "@/components/ui/notice";
+import { SafetyCautions } from "@/components/wax/safety-cautions";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { motifUrls } from "@/lib/contracts/motifs";
 import { runPages, stageNumber } from "@/lib/contracts/runs";
@@ -97,6 +98,7 @@ export default async function RunPage({ params, searchParams }: Props) {
           {t("runs.page.halted", { note: run.stateNote ?? "—" })}
         </Notice>
       ) : null}
+      {run.stages.some((s) => s.kind === "wax" || s.kind === "boil_off") ? <SafetyCautions headingId="run-wax-safety" /> : null}
       {run.waitingForPlan ? (
         <Notice tone="warning" className="mb-4">
           {t("runs.page.waitingForPlan")}
