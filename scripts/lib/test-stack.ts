@@ -74,3 +74,81 @@ export async function startTestApp(dataDir: string): Promise<TestApp> {
   }
   return { stop };
 }
+
+export interface RestartableTestApp extends TestApp {
+  /** The PostgreSQL cluster's folder (for `pg_ctl`: scripts/lib/postgres-faults.ts). */
+  readonly pgDir: string;
+  /** The server's process id while it runs (the leader of its own process group). */
+  readonly pid: number | undefined;
+  /** `kill -9` of the app: SIGKILL to the server's whole process group (tsx and the node it runs); waits for the exit. */
+  kill(): Promise<void>;
+  /** Starts the server again on the same build, database and port; answers once the port accepts connections. */
+  restart(): Promise<void>;
+}
+
+/**
+ * Like `startTestApp`, for the crash test: the server runs in a process group of its own, so it can be killed
+ * abruptly and started again while the cluster and the fakes stay up.
+ */
+export async function startRestartableTestApp(dataDir: string): Promise<RestartableTestApp> {
+  const env = process.env;
+  let stack: Stack | undefined;
+  let app: ChildProcess | undefined;
+  const pgDir = join(dataDir, "postgres");
+  const alive = () => app !== undefined && app.exitCode === null && app.signalCode === null;
+  const killGroup = (signal: NodeJS.Signals) => {
+    if (!app?.pid || !alive()) return;
+    try {
+      process.kill(-app.pid, signal);
+    } catch {
+      // already gone
+    }
+  };
+  const spawnApp = async () => {
+    app = spawn(join(projectRoot, "node_modules", ".bin", "tsx"), [join(projectRoot, "scripts", "server.ts"), "--port", env.PORT!, "--host", "127.0.0.1"], {
+      stdio: ["ignore", "ignore", "inherit"],
+      env,
+      cwd: projectRoot,
+      detached: true,
+    });
+    await waitForPort(Number(env.PORT));
+  };
+  const onExit = () => killGroup("SIGKILL");
+  process.on("exit", onExit);
+  const stop = () => {
+    killGroup("SIGTERM");
+    process.off("exit", onExit);
+    stack?.stop();
+    stack = undefined;
+    rmSync(dataDir, { recursive: true, force: true });
+  };
+  try {
+    stopCluster(pgDir); // left running by an interrupted run
+    rmSync(dataDir, { recursive: true, force: true });
+    stack = await startStack(dataDir, { quiet: true });
+    await runMigrations(env.DATABASE_URL!);
+    buildIfStale();
+    await spawnApp();
+  } catch (error) {
+    stop();
+    throw error;
+  }
+  return {
+    stop,
+    pgDir,
+    get pid() {
+      return alive() ? app?.pid : undefined;
+    },
+    async kill() {
+      const child = app;
+      if (!child || !alive()) return;
+      const exited = new Promise<void>((resolve) => child.once("exit", () => resolve()));
+      killGroup("SIGKILL");
+      await exited;
+    },
+    async restart() {
+      if (alive()) throw new Error("the app is still running; kill it first");
+      await spawnApp();
+    },
+  };
+}
