@@ -5,6 +5,9 @@
 // impression count is the sum of the impressions recorded for it; the history has one entry per check-out and
 // return. Prints a line per round and the figures. A throwaway stack (CAPGRID_TEST_SLOT, default 12).
 //   npm run crash-test [-- --rounds 20 --db-rounds 10]
+import { rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
 import { numberOption, sessionCookie } from "./lib/sign-in";
 import { restartCluster, stopClusterAbruptly } from "./lib/postgres-faults";
 import { startRestartableTestApp, testEnvironment } from "./lib/test-stack";
@@ -38,7 +41,10 @@ interface Write {
 const { env, dataDir } = testEnvironment(slot);
 const appUrl = env.APP_URL!;
 console.log(`[crash] throwaway stack in ${dataDir}, app on ${appUrl}; ${appRounds} app kills, ${dbRounds} PostgreSQL stops`);
-const app = await startRestartableTestApp(dataDir);
+// The server's errors while PostgreSQL is down are many; they go to a file, not the screen.
+const appLog = join(tmpdir(), `capgrid-crash-test-${slot}-app.log`);
+rmSync(appLog, { force: true });
+const app = await startRestartableTestApp(dataDir, { logFile: appLog });
 let failed = false;
 try {
   const { database } = await import("@/db");
@@ -108,6 +114,8 @@ try {
   let seq = 0;
   let round = 0;
   let burstOn = false;
+  // Between a fault and the service answering again, clients wait (as a person would) instead of hammering.
+  let down = false;
 
   const inFault = (w: Write) => faults.some((f) => w.sentAt <= f.end && (w.answeredAt ?? Infinity) >= f.start) || faults.some((f) => f.end === Infinity);
   const send = async (kind: Kind, method: string, path: string, body: Record<string, unknown>, marker: string, okStatus: number, extra: Partial<Write> = {}) => {
@@ -123,7 +131,10 @@ try {
     else unexpected.push(`round ${round}: ${method} ${path} → ${r.status} ${JSON.stringify(r.json)?.slice(0, 200)}`);
     return r;
   };
-  const pause = async (status: number) => sleep(status === 0 || status >= 500 ? 50 : between(0, 10));
+  const pause = async (status: number) => {
+    await sleep(status === 0 || status >= 500 ? 50 : between(0, 10));
+    while (down && burstOn) await sleep(50);
+  };
 
   const shelfWorker = async () => {
     while (burstOn) {
@@ -172,7 +183,7 @@ try {
       editWorker(codes.slice(4)),
     ]);
   };
-  const untilHealthy = async (timeoutMs = 60_000) => {
+  const untilHealthy = async (timeoutMs = 90_000) => {
     const deadline = performance.now() + timeoutMs;
     while (performance.now() < deadline) {
       if ((await call("GET", "/api/health")).status === 200) return;
@@ -259,6 +270,7 @@ try {
     await sleep(between(400, 1600));
     const f = { start: performance.now(), end: Infinity };
     faults.push(f);
+    down = true;
     const inFlight = writes.filter((w) => w.status === undefined).length;
     if (fault === "app") {
       await app.kill();
@@ -271,6 +283,7 @@ try {
     }
     await untilHealthy();
     f.end = performance.now();
+    down = false;
     await sleep(600); // the burst goes on against the restarted service
     burstOn = false;
     await burst;
@@ -305,6 +318,7 @@ try {
   const problems = [...new Set([...figures.flatMap((r) => r.problems), ...final.problems])];
   for (const p of problems) console.log(`  PROBLEM: ${p}`);
   failed = problems.length > 0 || unexpected.length > 0;
+  console.log(`  the server's standard error: ${appLog}`);
   console.log(failed ? "\nNOT held" : "\nheld: every acknowledged write survived, nothing double-booked or counted twice");
   await client.end({ timeout: 1 });
 } catch (error) {

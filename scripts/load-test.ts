@@ -6,8 +6,14 @@
 // API and a mixed run of reads with check-outs and returns (409 answers there are expected, not errors).
 // Prints requests/s, p50, p99, errors (non-2xx other than an expected 409, socket errors, timeouts) and the ratio
 // to the trivial handler beside the goal: every read route at half of it or more, p99 under 500 ms.
-//   npm run load [-- --duration 60 --connections 50 --baseline 20]
+// --only <text> runs the routes whose label contains it; --profile <dir> runs the server under `node --cpu-prof`
+// and prints where its time went (scripts/lib/cpu-profile.ts).
+//   npm run load [-- --duration 60 --connections 50 --baseline 20 --only stamps --profile /tmp/capgrid-profile]
+import { mkdirSync, rmSync } from "node:fs";
+import { resolve } from "node:path";
 import autocannon from "autocannon";
+import { buildIfStale } from "./lib/build";
+import { printProfileSummary } from "./lib/cpu-profile";
 import { numberOption, sessionCookie } from "./lib/sign-in";
 import { startTestApp, testEnvironment } from "./lib/test-stack";
 
@@ -15,6 +21,9 @@ const argv = process.argv.slice(2);
 const duration = numberOption(argv, "--duration", 60);
 const connections = numberOption(argv, "--connections", 50);
 const baseline = numberOption(argv, "--baseline", Math.max(5, Math.round(duration / 3)));
+const textOption = (name: string) => (argv.includes(name) ? argv[argv.indexOf(name) + 1] : undefined);
+const only = textOption("--only");
+const profileDir = textOption("--profile") && resolve(textOption("--profile")!);
 const slot = Number(process.env.CAPGRID_TEST_SLOT ?? 11);
 const RATIO_GOAL = 0.5;
 const P99_GOAL_MS = 500;
@@ -39,13 +48,22 @@ interface Figures {
   total: number;
   errors: number;
   expected: number;
+  /** The statuses counted as errors, "503×12". */
+  errorCodes: string;
 }
 
 const { env, dataDir } = testEnvironment(slot);
 const appUrl = env.APP_URL!;
 // The server listens on 127.0.0.1 only; the load goes there directly (APP_URL names localhost).
 const loopback = `http://127.0.0.1:${env.PORT}`;
+if (profileDir) {
+  buildIfStale(); // the build itself is not profiled
+  rmSync(profileDir, { recursive: true, force: true });
+  mkdirSync(profileDir, { recursive: true });
+  process.env.NODE_OPTIONS = `${process.env.NODE_OPTIONS ?? ""} --cpu-prof --cpu-prof-dir=${profileDir}`.trim();
+}
 const app = await startTestApp(dataDir);
+if (profileDir) delete process.env.NODE_OPTIONS;
 let failed = false;
 try {
   const { database } = await import("@/db");
@@ -81,7 +99,7 @@ try {
 
   const signedIn = { headers: { cookie, accept: "application/json" } };
   const trivial: Target = { label: "GET /api/auth/csrf (trivial)", read: false, options: { url: `${loopback}/api/auth/csrf` } };
-  const targets: Target[] = [
+  const allTargets: Target[] = [
     { label: "GET /api/health", read: false, options: { url: `${loopback}/api/health` } },
     { label: "GET /api/v1/me (session check only)", read: true, options: { url: `${loopback}/api/v1/me`, ...signedIn } },
     { label: "GET /api/v1/stamps?pageSize=50", read: true, options: { url: `${loopback}/api/v1/stamps?pageSize=50`, ...signedIn } },
@@ -106,18 +124,27 @@ try {
     },
   ];
 
+  const targets = allTargets.filter((t) => !only || t.label.includes(only));
+  if (!targets.length) throw new Error(`no route's label contains "${only}"`);
+
   const measure = async (target: Target, seconds: number, conns = connections): Promise<Figures> => {
     const result = await autocannon({ url: loopback, connections: conns, duration: seconds, timeout: 30, ...target.options } as autocannon.Options);
     const codes = result.statusCodeStats as unknown as Record<string, { count: number }>;
     let expected = 0;
     let bad = 0;
+    const badCodes: string[] = [];
     for (const [code, { count }] of Object.entries(codes ?? {})) {
       const status = Number(code);
       if (status >= 200 && status < 300) continue;
       if (target.expected?.includes(status)) expected += count;
-      else bad += count;
+      else {
+        bad += count;
+        badCodes.push(`${status}×${count}`);
+      }
     }
-    return { rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, total: result.requests.total, errors: bad + result.errors + result.timeouts, expected };
+    if (result.errors) badCodes.push(`socket errors×${result.errors}`);
+    if (result.timeouts) badCodes.push(`timeouts×${result.timeouts}`);
+    return { rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, total: result.requests.total, errors: bad + result.errors + result.timeouts, expected, errorCodes: badCodes.join(", ") };
   };
 
   // Warm-up: every route a moment at a few connections, so module loading and first compiles are not measured.
@@ -135,7 +162,7 @@ try {
     const ratio = f.rps / base.rps;
     const verdict = target.read ? (ratio >= RATIO_GOAL && f.p99 < P99_GOAL_MS && f.errors === 0 ? "met" : `MISSED${ratio < RATIO_GOAL ? " (ratio)" : ""}${f.p99 >= P99_GOAL_MS ? " (p99)" : ""}${f.errors ? " (errors)" : ""}`) : f.errors === 0 ? "0 errors" : "ERRORS";
     if (verdict !== "met" && verdict !== "0 errors") misses++;
-    const line = `${target.label.padEnd(42)} ${f.rps.toFixed(0).padStart(7)} ${`${f.p50} ms`.padStart(8)} ${`${f.p99} ms`.padStart(8)} ${String(f.errors).padStart(7)} ${String(f.expected).padStart(6)} ${base.rps.toFixed(0).padStart(8)} ${ratio.toFixed(2).padStart(6)}  ${verdict}`;
+    const line = `${target.label.padEnd(42)} ${f.rps.toFixed(0).padStart(7)} ${`${f.p50} ms`.padStart(8)} ${`${f.p99} ms`.padStart(8)} ${String(f.errors).padStart(7)} ${String(f.expected).padStart(6)} ${base.rps.toFixed(0).padStart(8)} ${ratio.toFixed(2).padStart(6)}  ${verdict}${f.errorCodes ? ` [${f.errorCodes}]` : ""}`;
     rows.push(line);
     console.log(line);
     console.log(`${"  (trivial handler just before)".padEnd(42)} ${base.rps.toFixed(0).padStart(7)} ${`${base.p50} ms`.padStart(8)} ${`${base.p99} ms`.padStart(8)} ${String(base.errors).padStart(7)}`);
@@ -147,5 +174,10 @@ try {
   failed = true;
 } finally {
   app.stop();
+}
+if (profileDir) {
+  // The profile is written when the server exits after SIGTERM.
+  await new Promise((done) => setTimeout(done, 8000));
+  printProfileSummary(profileDir);
 }
 process.exit(failed ? 1 : 0);

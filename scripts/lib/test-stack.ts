@@ -1,7 +1,7 @@
 // A throwaway copy of the whole app for tests and benchmarks: its own cluster, fakes, build and port.
 import { type ChildProcess, spawn } from "node:child_process";
 import { randomBytes } from "node:crypto";
-import { rmSync } from "node:fs";
+import { closeSync, openSync, rmSync } from "node:fs";
 import { join } from "node:path";
 import { buildIfStale } from "./build";
 import { chromiumPath } from "./chromium";
@@ -88,9 +88,10 @@ export interface RestartableTestApp extends TestApp {
 
 /**
  * Like `startTestApp`, for the crash test: the server runs in a process group of its own, so it can be killed
- * abruptly and started again while the cluster and the fakes stay up.
+ * abruptly and started again while the cluster and the fakes stay up. `logFile` takes the server's standard error
+ * (appended; by default it goes to this process's).
  */
-export async function startRestartableTestApp(dataDir: string): Promise<RestartableTestApp> {
+export async function startRestartableTestApp(dataDir: string, options: { logFile?: string } = {}): Promise<RestartableTestApp> {
   const env = process.env;
   let stack: Stack | undefined;
   let app: ChildProcess | undefined;
@@ -105,12 +106,14 @@ export async function startRestartableTestApp(dataDir: string): Promise<Restarta
     }
   };
   const spawnApp = async () => {
+    const stderr = options.logFile ? openSync(options.logFile, "a") : "inherit";
     app = spawn(join(projectRoot, "node_modules", ".bin", "tsx"), [join(projectRoot, "scripts", "server.ts"), "--port", env.PORT!, "--host", "127.0.0.1"], {
-      stdio: ["ignore", "ignore", "inherit"],
+      stdio: ["ignore", "ignore", stderr],
       env,
       cwd: projectRoot,
       detached: true,
     });
+    if (typeof stderr === "number") closeSync(stderr);
     await waitForPort(Number(env.PORT));
   };
   const onExit = () => killGroup("SIGKILL");
