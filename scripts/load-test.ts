@@ -12,10 +12,9 @@
 import { mkdirSync, rmSync } from "node:fs";
 import { resolve } from "node:path";
 import autocannon from "autocannon";
-import { buildIfStale } from "./lib/build";
 import { printProfileSummary } from "./lib/cpu-profile";
 import { numberOption, sessionCookie } from "./lib/sign-in";
-import { startTestApp, testEnvironment } from "./lib/test-stack";
+import { startRestartableTestApp, startTestApp, testEnvironment } from "./lib/test-stack";
 
 const argv = process.argv.slice(2);
 const duration = numberOption(argv, "--duration", 60);
@@ -57,13 +56,11 @@ const appUrl = env.APP_URL!;
 // The server listens on 127.0.0.1 only; the load goes there directly (APP_URL names localhost).
 const loopback = `http://127.0.0.1:${env.PORT}`;
 if (profileDir) {
-  buildIfStale(); // the build itself is not profiled
   rmSync(profileDir, { recursive: true, force: true });
   mkdirSync(profileDir, { recursive: true });
-  process.env.NODE_OPTIONS = `${process.env.NODE_OPTIONS ?? ""} --cpu-prof --cpu-prof-dir=${profileDir}`.trim();
 }
-const app = await startTestApp(dataDir);
-if (profileDir) delete process.env.NODE_OPTIONS;
+// With --profile the server runs under `node --cpu-prof` (the same server, in a process group of its own).
+const app = profileDir ? await startRestartableTestApp(dataDir, { nodeArgs: ["--cpu-prof", `--cpu-prof-dir=${profileDir}`] }) : await startTestApp(dataDir);
 let failed = false;
 try {
   const { database } = await import("@/db");

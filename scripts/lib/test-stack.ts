@@ -89,9 +89,9 @@ export interface RestartableTestApp extends TestApp {
 /**
  * Like `startTestApp`, for the crash test: the server runs in a process group of its own, so it can be killed
  * abruptly and started again while the cluster and the fakes stay up. `logFile` takes the server's standard error
- * (appended; by default it goes to this process's).
+ * (appended; by default it goes to this process's); `nodeArgs` are Node.js flags for the server (`--cpu-prof`).
  */
-export async function startRestartableTestApp(dataDir: string, options: { logFile?: string } = {}): Promise<RestartableTestApp> {
+export async function startRestartableTestApp(dataDir: string, options: { logFile?: string; nodeArgs?: string[] } = {}): Promise<RestartableTestApp> {
   const env = process.env;
   let stack: Stack | undefined;
   let app: ChildProcess | undefined;
@@ -107,7 +107,7 @@ export async function startRestartableTestApp(dataDir: string, options: { logFil
   };
   const spawnApp = async () => {
     const stderr = options.logFile ? openSync(options.logFile, "a") : "inherit";
-    app = spawn(join(projectRoot, "node_modules", ".bin", "tsx"), [join(projectRoot, "scripts", "server.ts"), "--port", env.PORT!, "--host", "127.0.0.1"], {
+    app = spawn(join(projectRoot, "node_modules", ".bin", "tsx"), [...(options.nodeArgs ?? []), join(projectRoot, "scripts", "server.ts"), "--port", env.PORT!, "--host", "127.0.0.1"], {
       stdio: ["ignore", "ignore", stderr],
       env,
       cwd: projectRoot,
