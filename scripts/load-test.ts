@@ -152,6 +152,7 @@ try {
   const header = `${"route".padEnd(42)} ${"req/s".padStart(7)} ${"p50".padStart(8)} ${"p99".padStart(8)} ${"errors".padStart(7)} ${"409".padStart(6)} ${"trivial".padStart(8)} ${"ratio".padStart(6)}  goal (ratio ≥ ${RATIO_GOAL}, p99 < ${P99_GOAL_MS} ms)`;
   console.log(header);
   const rows: string[] = [];
+  const perRequest = new Map<string, { route: number; trivial: number }>();
   let misses = 0;
   for (const target of targets) {
     const base = await measure(trivial, baseline);
@@ -161,8 +162,15 @@ try {
     if (verdict !== "met" && verdict !== "0 errors") misses++;
     const line = `${target.label.padEnd(42)} ${f.rps.toFixed(0).padStart(7)} ${`${f.p50} ms`.padStart(8)} ${`${f.p99} ms`.padStart(8)} ${String(f.errors).padStart(7)} ${String(f.expected).padStart(6)} ${base.rps.toFixed(0).padStart(8)} ${ratio.toFixed(2).padStart(6)}  ${verdict}${f.errorCodes ? ` [${f.errorCodes}]` : ""}`;
     rows.push(line);
+    perRequest.set(target.label, { route: 1000 / f.rps, trivial: 1000 / base.rps });
     console.log(line);
     console.log(`${"  (trivial handler just before)".padEnd(42)} ${base.rps.toFixed(0).padStart(7)} ${`${base.p50} ms`.padStart(8)} ${`${base.p99} ms`.padStart(8)} ${String(base.errors).padStart(7)}`);
+  }
+  // At saturation 1/throughput is what one request costs the machine (app, PostgreSQL and load generator together).
+  const me = perRequest.get(allTargets[1].label);
+  if (me) {
+    console.log(`\nmachine time per request at saturation (1 / req/s): trivial ${me.trivial.toFixed(1)} ms, the session check alone (GET /api/v1/me) ${me.route.toFixed(1)} ms`);
+    for (const [label, cost] of perRequest) if (label !== allTargets[1].label && label !== allTargets[0].label) console.log(`  ${label}: ${cost.route.toFixed(1)} ms, of which beyond the session check ${(cost.route - me.route).toFixed(1)} ms`);
   }
   console.log(`\n${misses ? `${misses} route(s) missed the goal` : "every route met the goal"} (${connections} connections, ${duration} s each; the load generator runs on the same machine as the app and PostgreSQL)`);
   failed = misses > 0;

@@ -44,11 +44,14 @@ export function printProfileSummary(dir: string, top = 12) {
   const byId = new Map(profile.nodes.map((n) => [n.id, n]));
   const hits = new Map<number, number>();
   for (const id of profile.samples) hits.set(id, (hits.get(id) ?? 0) + 1);
-  const total = profile.samples.length;
+  // Shares of the time the server was busy: idle time (before and between the runs) left out.
+  const idle = [...hits].filter(([id]) => byId.get(id)!.callFrame.functionName === "(idle)").reduce((a, [, n]) => a + n, 0);
+  const total = profile.samples.length - idle;
   const owners = new Map<string, number>();
   const functions = new Map<string, number>();
   for (const [id, n] of hits) {
     const node = byId.get(id)!;
+    if (node.callFrame.functionName === "(idle)") continue;
     const { functionName, url, lineNumber } = node.callFrame;
     const owner = ownerOf(url, functionName);
     owners.set(owner, (owners.get(owner) ?? 0) + n);
@@ -56,8 +59,8 @@ export function printProfileSummary(dir: string, top = 12) {
     functions.set(name, (functions.get(name) ?? 0) + n);
   }
   const seconds = (profile.endTime - profile.startTime) / 1e6;
-  console.log(`\n[profile] ${files[0]}: ${total} samples over ${seconds.toFixed(0)} s of the server`);
-  console.log("  self time by owner:");
+  console.log(`\n[profile] ${files[0]}: ${profile.samples.length} samples over ${seconds.toFixed(0)} s of the server, busy in ${total}`);
+  console.log("  self time by owner, share of the busy time (the app's chunks bundle Drizzle, postgres.js and Auth.js):");
   for (const [owner, n] of [...owners].sort((a, b) => b[1] - a[1]).slice(0, top)) console.log(`  ${pct(n, total)}  ${owner}`);
   console.log("  functions with the most self time:");
   for (const [name, n] of [...functions].sort((a, b) => b[1] - a[1]).slice(0, top)) console.log(`  ${pct(n, total)}  ${name.slice(0, 140)}`);
