@@ -330,13 +330,15 @@ try {
   if (reconnected.length) console.log(`  app answering again after PostgreSQL's stop (1 s down, restart, recovery): median ${(median(reconnected.map((r) => r.downMs)) / 1000).toFixed(1)} s, slowest ${(Math.max(...reconnected.map((r) => r.downMs)) / 1000).toFixed(1)} s (${reconnected.length} of ${dbFig.length} stops)`);
   const stuck = dbFig.length - reconnected.length;
   if (stuck) console.log(`  FINDING: after ${stuck} of ${dbFig.length} stops the app had not reconnected ${RECONNECT_LIMIT_MS / 1000} s after PostgreSQL was up (GET /api/health 503, database down) and was restarted`);
-  console.log(`  unexpected answers outside a fault (not 2xx or 409): ${unexpected.length}`);
+  const hung = unexpected.filter((u) => / → 0 null$/.test(u)).length;
+  console.log(`  unexpected answers outside a fault (not 2xx or 409): ${unexpected.length}, of which ${hung} no answer within 15 s (the request hung)`);
   for (const u of unexpected.slice(0, 10)) console.log(`    ${u}`);
   const problems = [...new Set([...figures.flatMap((r) => r.problems), ...final.problems])];
   for (const p of problems) console.log(`  PROBLEM: ${p}`);
   failed = problems.length > 0 || unexpected.length > 0;
   console.log(`  the server's standard error: ${appLog}`);
-  console.log(failed ? "\nNOT held" : "\nheld: every acknowledged write survived, nothing double-booked or counted twice");
+  console.log(problems.length ? "\ndata: NOT held (see the problems above)" : "\ndata: held — every acknowledged write survived, nothing double-booked or counted twice");
+  console.log(unexpected.length || stuck ? `service: NOT held — ${unexpected.length} requests outside a fault went unanswered or failed${stuck ? `, ${stuck} restart(s) needed` : ""}` : "service: held — every request outside a fault answered 2xx or 409");
   await client.end({ timeout: 1 });
 } catch (error) {
   console.error(error);
