@@ -43,7 +43,7 @@ describe("the estimate form's recovery", () => {
   it("is the recovery measured at the boil-offs, with a line saying from how many", async () => {
     const expected = await measuredByHand();
     expect(expected.boilOffs).toBeGreaterThanOrEqual(1);
-    const defaults = (await api("GET", "/api/v1/wax/defaults", { session: waxmaster })).body;
+    const defaults = (await api("GET", "/api/v1/wax/defaults", { session: waxmaster })).body.defaults;
     expect(defaults.measuredRecoveryPct).toBeCloseTo(expected.pct, 9);
     expect(defaults.measuredRecoveryBoilOffs).toBe(expected.boilOffs);
 
