@@ -65,20 +65,8 @@ describe("the bleach flag of a colourway's colour", () => {
       ["boil_off", null],
     ]);
     expect(stages[2].dyeMethod).toBeNull();
-
-    // Taking the flag off (a PATCH replaces the colourways) and a new run dyes that colour.
-    const way = read.body.motif.colourways[0];
-    const patched = await api("PATCH", `/api/v1/motifs/${motif.id}`, {
-      session: designer,
-      body: { version: read.body.motif.version, colourways: [{ name: way.name, colours: way.colours.map((c: { name: string; swatch: string; waxStamps: string[]; face: string }) => ({ name: c.name, swatch: c.swatch, waxStamps: c.waxStamps, face: c.face, bleach: false })) }] },
-    });
-    expect(patched.status, JSON.stringify(patched.body)).toBe(200);
-    const again = await api("POST", "/api/v1/runs", {
-      session: planner,
-      body: { name: `${prefix} run 2`, motifId: motif.id, colourwayId: patched.body.motif.colourways[0].id, cloth: "mori primissima 115 cm", metres: 10, recipeId: recipes.find((r) => !r.archivedAt)!.id },
-    });
-    expect(again.status, JSON.stringify(again.body)).toBe(201);
-    expect((again.body.run.stages as { kind: string }[]).map((s) => s.kind)).toEqual(["dye", "wax", "dye", "wax", "dye", "boil_off"]);
+    // "Not bleached: a plain dip." spoke of bleaching, which the old inference from dye notes took for a bleach.
+    expect(stages[0].dyeMethod).toBe("bath");
   });
 
   it("refuses a flag that is not true or false, beside the field", async () => {
