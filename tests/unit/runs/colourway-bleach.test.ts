@@ -8,6 +8,7 @@ import { defaultStages } from "@/lib/runs";
 
 describe("the bleach flag in the colourway lines", () => {
   it("is read from the word bleach in a colour's brackets, in any case, beside stamps and the face", () => {
+    expect(parseColourways("Pale ground:\nIndigo #1f3a5f\nPale blue #9fb8d0 [bleach]")[0].colours.map((c) => c.bleach)).toEqual([false, true]);
     const [way] = parseColourways("Pale ground: Indigo #1f3a5f [CP-0001 front]; Pale blue #9fb8d0 [CP-0002 both BLEACH]; Soga #6b4423 [bleach]");
     expect(way.colours).toEqual([
       { name: "Indigo", swatch: "#1f3a5f", waxStamps: ["CP-0001"], face: "front", bleach: false },
@@ -30,7 +31,7 @@ describe("the bleach flag in the colourway lines", () => {
       },
     ];
     const text = colourwaysText(ways);
-    expect(text).toBe("Pale ground: Indigo #1f3a5f [CP-0001 front]; Pale blue #9fb8d0 [front bleach]");
+    expect(text).toBe(["Pale ground:", "Indigo #1f3a5f [CP-0001 front]", "Pale blue #9fb8d0 [front bleach]"].join("\n"));
     expect(parseColourways(text)[0].colours.map((c) => c.bleach)).toEqual([false, true]);
   });
 });
