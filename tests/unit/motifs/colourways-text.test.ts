@@ -69,8 +69,8 @@ describe("colourways as text lines", () => {
         name: "Market soga",
         notes: "the dry-season order",
         colours: [
-          { name: "Cream", swatch: "#f4efe6", waxStamps: ["CP-0001"], face: "front", dyeNotes: "undyed mori" },
-          { name: "Soga brown", swatch: "#8a5a2b", waxStamps: [], face: "front", dyeNotes: "two baths, fixed with lime" },
+          { name: "Cream", swatch: "#f4efe6", waxStamps: ["CP-0001"], face: "front", bleach: false, dyeNotes: "undyed mori" },
+          { name: "Soga brown", swatch: "#8a5a2b", waxStamps: [], face: "front", bleach: false, dyeNotes: "two baths, fixed with lime" },
         ],
       },
     ]);
