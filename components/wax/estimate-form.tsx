@@ -71,6 +71,12 @@ export function EstimateForm({
   const recipe = recipes.find((r) => r.id === recipeId);
   const result = state.status === "success" && state.data?.result ? (JSON.parse(state.data.result) as EstimateResultDto) : null;
   const n = (value: number, digits = 2) => format.number(value, { maximumFractionDigits: digits });
+  // The recovery measured at the runs' boil-offs when there is one (rounded to a tenth, as people write it), else the
+  // wax master's default; the hint says which, and from how many boil-offs.
+  const measured = defaults.measuredRecoveryPct;
+  const recoveryOffered = measured === null ? defaults.waxRecoveryPct : Math.round(measured * 10) / 10;
+  const recoveryHint =
+    measured === null ? t("recoveryDefault", { pct: defaults.waxRecoveryPct }) : t("recoveryMeasured", { pct: recoveryOffered, boilOffs: defaults.measuredRecoveryBoilOffs });
   const money = (value: number) => format.number(value, { style: "currency", currency: defaults.currency, maximumFractionDigits: defaults.currency === "IDR" ? 0 : 2 });
 
   return (
@@ -164,8 +170,8 @@ export function EstimateForm({
           <Field id="estimate-loss" label={t("loss")} errors={e.lossPct}>
             {(aria) => <input {...aria} name="lossPct" inputMode="decimal" defaultValue={v("lossPct", numberInput(defaults.waxLossPct, locale))} />}
           </Field>
-          <Field id="estimate-recovery" label={t("recovery")} hint={t("recoveryHint")} errors={e.recoveryPct}>
-            {(aria) => <input {...aria} name="recoveryPct" inputMode="decimal" defaultValue={v("recoveryPct", numberInput(defaults.waxRecoveryPct, locale))} />}
+          <Field id="estimate-recovery" label={t("recovery")} hint={recoveryHint} errors={e.recoveryPct}>
+            {(aria) => <input {...aria} name="recoveryPct" inputMode="decimal" defaultValue={v("recoveryPct", numberInput(recoveryOffered, locale))} />}
           </Field>
         </fieldset>
 

@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { type AnyPgColumn, check, date, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { type AnyPgColumn, boolean, check, date, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { stamps } from "./stamps";
 import { users } from "./users";
 
@@ -109,6 +109,8 @@ export const motifColours = pgTable(
     /** The stamps that wax over this colour before the next dye (from the motif's set), and on which face. */
     waxStampIds: uuid("wax_stamp_ids").array().notNull().default(sql`'{}'::uuid[]`),
     face: clothFaceEnum("face").notNull().default("front"),
+    /** The colour is reached by bleaching (the ground taken back) rather than by a dye: a run gets a bleach stage for it. */
+    bleach: boolean("bleach").notNull().default(false),
   },
   (t) => [uniqueIndex("motif_colours_order_key").on(t.colourwayId, t.position), check("motif_colours_swatch_hex", sql`${t.swatch} ~ '^#[0-9a-f]{6}$'`)],
 );

@@ -28,6 +28,8 @@ export interface ColourDto {
   dyeNotes: string | null;
   waxStamps: string[];
   face: ClothFace;
+  /** Reached by bleaching rather than by a dye (a run's default stages bleach for it). */
+  bleach: boolean;
 }
 
 export interface ColourwayDto {
@@ -167,10 +169,11 @@ export function motifFormInput(form: FormData): Record<string, unknown> {
 }
 
 const FACES = new Set<string>(clothFaceValues);
+/** The word in a colour's brackets that marks it as reached by bleaching (typed as it is, in both languages). */
+export const BLEACH_WORD = "bleach";
 
-type ColourInput = { name: string; swatch: string; waxStamps: string[]; face: ClothFace; dyeNotes?: string };
+type ColourInput = { name: string; swatch: string; waxStamps: string[]; face: ClothFace; bleach: boolean; dyeNotes?: string };
 
-/** One colour as written: "Colour #rrggbb [CODE CODE face]"; what does not read as one keeps its text as the name and no swatch. */
 /** Dye notes follow " // " on a colour's line (and a colourway's notes on its name line). */
 const NOTES = " // ";
 const splitNotes = (line: string): [string, string | undefined] => {
@@ -178,13 +181,19 @@ const splitNotes = (line: string): [string, string | undefined] => {
   return at < 0 ? [line, undefined] : [line.slice(0, at).trim(), line.slice(at + NOTES.trim().length).trim() || undefined];
 };
 
+/**
+ * One colour as written: "Colour #rrggbb [CODE CODE face bleach] // dye notes" (the word `bleach` marks a colour
+ * reached by bleaching); what does not read as one keeps its text as the name and no swatch.
+ */
 function parseColour(line: string): ColourInput {
   const [c, dyeNotes] = splitNotes(line);
   const m = /^(.*?)\s*(#[0-9a-fA-F]{6})\s*(?:\[([^\]]*)\])?$/.exec(c);
-  if (!m) return { name: c, swatch: "", waxStamps: [], face: "front", dyeNotes };
+  if (!m) return { name: c, swatch: "", waxStamps: [], face: "front", bleach: false, dyeNotes };
   const words = (m[3] ?? "").split(/[\s,]+/).filter(Boolean);
   const face = (words.find((w) => FACES.has(w.toLowerCase()))?.toLowerCase() ?? "front") as ClothFace;
-  return { name: m[1].trim(), swatch: m[2].toLowerCase(), waxStamps: words.filter((w) => !FACES.has(w.toLowerCase())), face, dyeNotes };
+  const bleach = words.some((w) => w.toLowerCase() === BLEACH_WORD);
+  const waxStamps = words.filter((w) => !FACES.has(w.toLowerCase()) && w.toLowerCase() !== BLEACH_WORD);
+  return { name: m[1].trim(), swatch: m[2].toLowerCase(), waxStamps, face, bleach, dyeNotes };
 }
 
 /**
@@ -235,7 +244,10 @@ export function colourwaysText(colourways: ColourwayDto[]): string {
     .map((w) =>
       [
         `${w.name}:${w.notes ? `${NOTES}${w.notes}` : ""}`,
-        ...w.colours.map((c) => `${c.name} ${c.swatch}${c.waxStamps.length || c.face !== "front" ? ` [${[...c.waxStamps, c.face].join(" ")}]` : ""}${c.dyeNotes ? `${NOTES}${c.dyeNotes}` : ""}`),
+        ...w.colours.map(
+          (c) =>
+            `${c.name} ${c.swatch}${c.waxStamps.length || c.face !== "front" || c.bleach ? ` [${[...c.waxStamps, c.face, ...(c.bleach ? [BLEACH_WORD] : [])].join(" ")}]` : ""}${c.dyeNotes ? `${NOTES}${c.dyeNotes}` : ""}`,
+        ),
       ].join("\n"),
     )
     .join("\n\n");

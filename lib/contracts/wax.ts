@@ -234,6 +234,8 @@ export interface WaxDefaultsDto {
   waxRecoveryPct: number;
   /** The recovery % measured at the runs' boil-offs; estimates take it as their default recovery when there is one. */
   measuredRecoveryPct: number | null;
+  /** How many runs' boil-offs the measured recovery comes from (0 before the first). */
+  measuredRecoveryBoilOffs: number;
   currency: Currency;
   /** The workshop settings' version a change starts from. */
   version: number;

@@ -14,12 +14,13 @@ import type enWax from "./messages/en/wax.json";
 import type enWaxRoom from "./messages/en/wax-room.json";
 import type enMotifs from "./messages/en/motifs.json";
 import type enRuns from "./messages/en/runs.json";
+import type enOverview from "./messages/en/overview.json";
 
 // Message keys are typed from the English catalogue: a key that does not exist (also one built
 // from a template) fails `npm run typecheck`.
 declare module "next-intl" {
   interface AppConfig {
     Formats: { dateTime: typeof dateTimeFormats; number: typeof numberFormats };
-    Messages: typeof enApi & typeof enAuth & typeof enEmails & typeof enErrors & typeof enLayout & typeof enPeople & typeof enPlans & typeof enRequests & typeof enScans & typeof enShell & typeof enStamps & typeof enWax & typeof enWaxRoom & typeof enMotifs & typeof enRuns;
+    Messages: typeof enApi & typeof enAuth & typeof enEmails & typeof enErrors & typeof enLayout & typeof enPeople & typeof enPlans & typeof enRequests & typeof enScans & typeof enShell & typeof enStamps & typeof enWax & typeof enWaxRoom & typeof enMotifs & typeof enRuns & typeof enOverview;
   }
 }

@@ -14,6 +14,7 @@ import enWax from "./messages/en/wax.json";
 import enWaxRoom from "./messages/en/wax-room.json";
 import enMotifs from "./messages/en/motifs.json";
 import enRuns from "./messages/en/runs.json";
+import enOverview from "./messages/en/overview.json";
 import idApi from "./messages/id/api.json";
 import idAuth from "./messages/id/auth.json";
 import idEmails from "./messages/id/emails.json";
@@ -29,6 +30,7 @@ import idWax from "./messages/id/wax.json";
 import idWaxRoom from "./messages/id/wax-room.json";
 import idMotifs from "./messages/id/motifs.json";
 import idRuns from "./messages/id/runs.json";
+import idOverview from "./messages/id/overview.json";
 
 /** Languages that have a catalogue: every language people can choose (`locales` in config.ts). */
 export type CatalogueLocale = Locale;
@@ -38,8 +40,8 @@ export type CatalogueLocale = Locale;
 // tests/unit/catalogue.test.ts checks no namespace is defined twice, and
 // tests/unit/catalogue-parity.test.ts that the two languages have the same keys and placeholders.
 export const catalogueFiles = {
-  en: [enShell, enAuth, enPeople, enErrors, enEmails, enLayout, enStamps, enScans, enApi, enWax, enWaxRoom, enPlans, enRequests, enMotifs, enRuns],
-  id: [idShell, idAuth, idPeople, idErrors, idEmails, idLayout, idStamps, idScans, idApi, idWax, idWaxRoom, idPlans, idRequests, idMotifs, idRuns],
+  en: [enShell, enAuth, enPeople, enErrors, enEmails, enLayout, enStamps, enScans, enApi, enWax, enWaxRoom, enPlans, enRequests, enMotifs, enRuns, enOverview],
+  id: [idShell, idAuth, idPeople, idErrors, idEmails, idLayout, idStamps, idScans, idApi, idWax, idWaxRoom, idPlans, idRequests, idMotifs, idRuns, idOverview],
 } satisfies Record<CatalogueLocale, object[]>;
 
 const merge = (files: object[]) => Object.assign({}, ...files) as Record<string, unknown>;

@@ -88,9 +88,14 @@ export function runTotals(stages: readonly StageFigures[]): RunTotals {
  * capped at 100; null when none is recorded. The estimator offers it as the default recovery.
  */
 export function measuredRecoveryPct(runs: readonly { gramsUsed: number; gramsRecovered: number }[]): number | null {
+  return measuredRecoveryOf(runs)?.pct ?? null;
+}
+
+/** The measured recovery % (as measuredRecoveryPct) with the number of runs' boil-offs it comes from; null before the first. */
+export function measuredRecoveryOf(runs: readonly { gramsUsed: number; gramsRecovered: number }[]): { pct: number; boilOffs: number } | null {
   const measured = runs.filter((r) => r.gramsUsed > 0 && r.gramsRecovered > 0);
   if (measured.length === 0) return null;
   const used = measured.reduce((a, r) => a + r.gramsUsed, 0);
   const recovered = measured.reduce((a, r) => a + r.gramsRecovered, 0);
-  return Math.min(100, (recovered / used) * 100);
+  return { pct: Math.min(100, (recovered / used) * 100), boilOffs: measured.length };
 }

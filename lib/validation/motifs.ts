@@ -29,6 +29,8 @@ const colour = z
     /** Codes of stamps of the motif's set that wax over this colour. */
     waxStamps: z.array(stampCodeSchema).max(20, "validation.tooMany").default([]),
     face: z.enum(clothFaces, "validation.invalidOption").default("front"),
+    /** Reached by bleaching, not by a dye: a run's default stages bleach for it. */
+    bleach: z.boolean("validation.invalidOption").default(false),
   })
   .strict();
 

@@ -80,7 +80,7 @@ export async function seedRuns(db: Database) {
   const stampRows = stampIds.length ? await db.select({ id: stamps.id, code: stamps.code }).from(stamps).where(inArray(stamps.id, stampIds)) : [];
   const codeOf = new Map(stampRows.map((s) => [s.id, s.code]));
   const idOf = new Map(stampRows.map((s) => [s.code, s.id]));
-  const stages = defaultStages(colours.map((c) => ({ position: c.position, name: c.name, swatch: c.swatch, face: c.face, waxStamps: c.waxStampIds.flatMap((id) => (codeOf.has(id) ? [codeOf.get(id)!] : [])) })));
+  const stages = defaultStages(colours.map((c) => ({ position: c.position, name: c.name, swatch: c.swatch, face: c.face, bleach: c.bleach, waxStamps: c.waxStampIds.flatMap((id) => (codeOf.has(id) ? [codeOf.get(id)!] : [])) })));
   const summary = plan.summary as { waxedAreaPerMetreM2: number; impressionsTotal: number; runLengthMm: number };
   const fractions = massFractions(components.map((c) => ({ material: c.materialId, pct: c.pct })));
 

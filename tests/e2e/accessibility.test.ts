@@ -50,7 +50,7 @@ describe("every page", () => {
 
     const page = await browser.newPage();
     await signInThroughPage(page, admin.email, admin.password);
-    await visit(page, "/", (p) => p.getByTestId("permissions").waitFor());
+    await visit(page, "/", (p) => p.getByTestId("role-permissions").waitFor());
     await visit(page, "/account", heading("My account"));
     await visit(page, "/api-reference", heading("API reference"));
     await visit(page, "/admin", (p) => p.getByRole("form", { name: "Invite someone" }).waitFor());

@@ -153,13 +153,18 @@ describe("the motif form", () => {
     await page.getByLabel("Name", { exact: true }).fill(`${prefix} Form motif`);
     await page.getByLabel("Tags").fill("geometric, stars");
     await page.getByLabel("Stamp set").fill(`${codes.border} border`);
-    // One colour a line under its colourway's name.
-    await page.getByLabel("Colourways").fill("Night:\nUndyed #f4efe6 [both]\nIndigo #1f3a5f");
+    // One colour a line under its colourway's name; the word bleach marks a colour reached by bleaching.
+    await page.getByLabel("Colourways").fill("Night:\nUndyed #f4efe6 [both]\nIndigo #1f3a5f\nPale blue #9fb8d0 [bleach]");
     await page.getByRole("button", { name: "Add motif" }).click();
     await page.waitForURL(/\/motifs\/[0-9a-f-]{36}\?saved=created/);
     await page.getByText("Motif added.").waitFor();
     const colourways = await page.getByTestId("motif-colourways").textContent();
     for (const word of ["Night", "Undyed", "Indigo"]) expect(colourways).toContain(word);
+    expect(colourways).toMatch(/Pale blue.*reached by bleaching: the run bleaches, no dye bath/);
+    expect(colourways?.match(/reached by bleaching/g)).toHaveLength(1);
+    // The edit form writes the flag back.
+    await page.goto(`${page.url().replace(/\?.*$/, "")}/edit`);
+    expect(await page.getByLabel("Colourways").inputValue()).toBe("Night:\nUndyed #f4efe6 [both]\nIndigo #1f3a5f\nPale blue #9fb8d0 [front bleach]");
     await page.close();
   });
 

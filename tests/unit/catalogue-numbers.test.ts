@@ -20,6 +20,8 @@ const textArguments = new Set([
   "pieceLength", "motif", "plan", "plans", "requester", "right", "state", "stamps", "today", "twin", "untilOn", "who", "width", "yards", "gap",
   // the motif archive's names, dates and lists
   "date", "face", "fields", "file", "uses",
+  // the overview: a day, a temperature and a colour written before they reach the message
+  "lastOn", "temp", "colour",
   // production runs: the stage numbers a refusal lists ("2, 4")
   "stages",
   // production runs' screens: masses written by the unit helpers, a stage's label

@@ -193,7 +193,7 @@ async function colourwaysOf(tx: Db, motifId: string): Promise<ColourwayDto[]> {
     notes: w.notes,
     colours: colours
       .filter((c) => c.colourwayId === w.id)
-      .map((c) => ({ name: c.name, swatch: c.swatch, dyeNotes: c.dyeNotes, face: c.face, waxStamps: c.waxStampIds.flatMap((id) => (codes.has(id) ? [codes.get(id)!] : [])) })),
+      .map((c) => ({ name: c.name, swatch: c.swatch, dyeNotes: c.dyeNotes, face: c.face, bleach: c.bleach, waxStamps: c.waxStampIds.flatMap((id) => (codes.has(id) ? [codes.get(id)!] : [])) })),
   }));
 }
 
@@ -290,7 +290,7 @@ async function writeSet(tx: Transaction, motifId: string, input: { stamps?: Crea
         await tx.delete(motifColours).where(eq(motifColours.colourwayId, wayId));
       } else [{ id: wayId }] = await tx.insert(motifColourways).values({ motifId, name: cw.name, notes: cw.notes ?? null, position }).returning({ id: motifColourways.id });
       await tx.insert(motifColours).values(
-        cw.colours.map((c, i) => ({ colourwayId: wayId!, position: i, name: c.name, swatch: c.swatch, dyeNotes: c.dyeNotes ?? null, face: c.face, waxStampIds: c.waxStamps.map((code) => ids!.get(code)!) })),
+        cw.colours.map((c, i) => ({ colourwayId: wayId!, position: i, name: c.name, swatch: c.swatch, dyeNotes: c.dyeNotes ?? null, face: c.face, bleach: c.bleach ?? false, waxStampIds: c.waxStamps.map((code) => ids!.get(code)!) })),
       );
     }
   }

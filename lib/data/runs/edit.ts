@@ -22,9 +22,6 @@ import { audit } from "@/lib/log";
 
 type StageWithId = StageSpec & { id?: string };
 
-/** A colour whose dye notes speak of bleaching is reached by a bleaching stage (until colourways carry it). */
-const BLEACH_WORDS = /\b(bleach|bleached|bleaching|pemutihan|diputihkan|luntur)\b/i;
-
 async function defaultStagesFor(tx: Transaction, motifId: string, colourwayId: string, planId: string | null, recipeId: string | null): Promise<StageWithId[]> {
   const [colourway] = await tx.select({ id: motifColourways.id }).from(motifColourways).where(and(eq(motifColourways.id, colourwayId), eq(motifColourways.motifId, motifId))).limit(1);
   if (!colourway) throw new AppError("unprocessable", {}, { colourwayId: ["runs.colourwayUnknown"] });
@@ -32,7 +29,7 @@ async function defaultStagesFor(tx: Transaction, motifId: string, colourwayId: s
   const stampIds = [...new Set(colours.flatMap((c) => c.waxStampIds))];
   const codes = new Map(stampIds.length ? (await tx.select({ id: stamps.id, code: stamps.code }).from(stamps).where(inArray(stamps.id, stampIds))).map((s) => [s.id, s.code]) : []);
   return defaultStages(
-    colours.map((c) => ({ position: c.position, name: c.name, swatch: c.swatch, face: c.face, bleach: BLEACH_WORDS.test(c.dyeNotes ?? ""), waxStamps: c.waxStampIds.flatMap((id) => (codes.has(id) ? [codes.get(id)!] : [])) })),
+    colours.map((c) => ({ position: c.position, name: c.name, swatch: c.swatch, face: c.face, bleach: c.bleach, waxStamps: c.waxStampIds.flatMap((id) => (codes.has(id) ? [codes.get(id)!] : [])) })),
   ).map((s) => ({ ...s, planId: s.kind === "wax" ? planId : null, recipeId: s.kind === "wax" ? recipeId : null, passes: 1 }));
 }
 

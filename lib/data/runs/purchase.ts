@@ -8,7 +8,7 @@ import { runPlans, runs, runStages, waxUses } from "@/db/schema";
 
 export async function openRunWaxNeeds(): Promise<{
   planIds: Set<string>;
-  stages: { runId: string; runName: string; stageId: string; position: number; kg: number; byMaterial: { material: string; kg: number }[] }[];
+  stages: { runId: string; runName: string; stageId: string; position: number; plannedStartOn: string | null; kg: number; byMaterial: { material: string; kg: number }[] }[];
 }> {
   const open = await db.select({ id: runs.id, name: runs.name }).from(runs).where(inArray(runs.state, ["setup", "underway"]));
   if (!open.length) return { planIds: new Set(), stages: [] };
@@ -31,7 +31,7 @@ export async function openRunWaxNeeds(): Promise<{
       const left = Math.max(0, s.kgEstimated - (usedKg.get(s.id) ?? 0));
       const share = left / s.kgEstimated;
       const byMaterial = ((s.estimate?.byMaterial ?? []) as { material: string; kg: number }[]).map((m) => ({ material: m.material, kg: m.kg * share }));
-      return { runId: s.runId, runName: name.get(s.runId) ?? "", stageId: s.id, position: s.position, kg: left, byMaterial };
+      return { runId: s.runId, runName: name.get(s.runId) ?? "", stageId: s.id, position: s.position, plannedStartOn: s.plannedStartOn, kg: left, byMaterial };
     })
     .filter((s) => s.kg > 0);
   const planIds = new Set([...plansOfRuns.map((p) => p.planId), ...stages.flatMap((s) => (s.planId ? [s.planId] : []))]);

@@ -5,7 +5,7 @@ import { runFindings, runProgress, runReadings, runs, runStages, runStageStamps,
 import { assertCan, type Actor } from "@/lib/authz";
 import type { FlaggedStampDto, RunDto, RunFindingDto, RunReadingDto } from "@/lib/contracts/runs";
 import { AppError, type FieldMessage } from "@/lib/errors";
-import { currentStage, measuredRecoveryPct, progressGrams, progressIssuesForKind, readingWarnings } from "@/lib/runs";
+import { currentStage, measuredRecoveryOf, progressGrams, progressIssuesForKind, readingWarnings } from "@/lib/runs";
 import type { RecordFindingInput, RecordProgressInput, RecordReadingInput } from "@/lib/validation/runs";
 import { impressionsOfWaxing } from "@/lib/wax";
 import type { ImpressionsToAdd } from "../stamps/impressions";
@@ -216,6 +216,11 @@ export async function listFlaggedStamps(actor: Actor): Promise<FlaggedStampDto[]
  * first; the estimator offers it as the default recovery instead of the wax master's setting.
  */
 export async function measuredRecovery(tx: Transaction | typeof db = db): Promise<number | null> {
+  return (await measuredRecoveryFigures(tx))?.pct ?? null;
+}
+
+/** The measured recovery % with how many runs' boil-offs it comes from (the estimate form says so), or null. */
+export async function measuredRecoveryFigures(tx: Transaction | typeof db = db): Promise<{ pct: number; boilOffs: number } | null> {
   const rows = await tx
     .select({
       runId: runStages.runId,
@@ -225,5 +230,5 @@ export async function measuredRecovery(tx: Transaction | typeof db = db): Promis
     .from(runProgress)
     .innerJoin(runStages, eq(runStages.id, runProgress.stageId))
     .groupBy(runStages.runId);
-  return measuredRecoveryPct(rows.map((r) => ({ gramsUsed: r.used, gramsRecovered: r.recovered })));
+  return measuredRecoveryOf(rows.map((r) => ({ gramsUsed: r.used, gramsRecovered: r.recovered })));
 }

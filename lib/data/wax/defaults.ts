@@ -2,7 +2,7 @@ import "server-only";
 import { assertCan, type Actor } from "@/lib/authz";
 import type { WaxDefaultsDto } from "@/lib/contracts/wax";
 import type { UpdateWaxDefaultsInput } from "@/lib/validation/settings";
-import { measuredRecovery } from "../runs/records";
+import { measuredRecoveryFigures } from "../runs/records";
 import { currentSettings, saveSettings } from "../settings";
 
 // The wax master's defaults for new estimates (rate before any calibration, losses, recovery after the boil-off),
@@ -10,8 +10,16 @@ import { currentSettings, saveSettings } from "../settings";
 
 export async function getWaxDefaults(actor: Actor): Promise<WaxDefaultsDto> {
   assertCan(actor, "data:read");
-  const [{ settings, version }, measuredRecoveryPct] = await Promise.all([currentSettings(), measuredRecovery()]);
-  return { waxRateGPerM2: settings.waxRateGPerM2, waxLossPct: settings.waxLossPct, waxRecoveryPct: settings.waxRecoveryPct, measuredRecoveryPct, currency: settings.currency, version };
+  const [{ settings, version }, measured] = await Promise.all([currentSettings(), measuredRecoveryFigures()]);
+  return {
+    waxRateGPerM2: settings.waxRateGPerM2,
+    waxLossPct: settings.waxLossPct,
+    waxRecoveryPct: settings.waxRecoveryPct,
+    measuredRecoveryPct: measured?.pct ?? null,
+    measuredRecoveryBoilOffs: measured?.boilOffs ?? 0,
+    currency: settings.currency,
+    version,
+  };
 }
 
 /** Saves the defaults named, from the settings' version (409 settingsConflict on a stale one). */

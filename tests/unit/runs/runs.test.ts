@@ -4,6 +4,7 @@ import {
   defaultStages,
   findingInputSchema,
   flaggedStamps,
+  measuredRecoveryOf,
   measuredRecoveryPct,
   parseRun,
   progressGrams,
@@ -109,6 +110,9 @@ describe("run totals", () => {
     expect(measuredRecoveryPct([{ gramsUsed: 4000, gramsRecovered: 2900 }, { gramsUsed: 2000, gramsRecovered: 1000 }, { gramsUsed: 3000, gramsRecovered: 0 }])).toBeCloseTo(65, 9);
     expect(measuredRecoveryPct([])).toBeNull();
     expect(measuredRecoveryPct([{ gramsUsed: 100, gramsRecovered: 150 }])).toBe(100);
+    // The estimate form says how many boil-offs the figure comes from: the runs with both wax used and recovered.
+    expect(measuredRecoveryOf([{ gramsUsed: 4000, gramsRecovered: 2900 }, { gramsUsed: 2000, gramsRecovered: 1000 }, { gramsUsed: 3000, gramsRecovered: 0 }])).toEqual({ pct: 65, boilOffs: 2 });
+    expect(measuredRecoveryOf([{ gramsUsed: 0, gramsRecovered: 500 }])).toBeNull();
   });
 });
 

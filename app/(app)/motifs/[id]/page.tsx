@@ -131,6 +131,7 @@ export default async function MotifPage({ params, searchParams }: { params: Prom
                             <span className="font-medium text-stone-900">{c.name}</span> <span className="font-mono text-xs text-stone-500">{c.swatch}</span>
                             <span className="block text-xs text-stone-600">
                               {c.waxStamps.length ? t("motifs.page.waxedBy", { stamps: c.waxStamps.join(", "), face: t(`motifs.faces.${c.face}`) }) : t("motifs.page.notWaxed")}
+                              {c.bleach ? <> · {t("motifs.page.bleached")}</> : null}
                               {c.dyeNotes ? ` · ${c.dyeNotes}` : ""}
                             </span>
                           </span>

@@ -1,0 +1,1 @@
+ALTER TABLE "motif_colours" ADD COLUMN "bleach" boolean DEFAULT false NOT NULL;
