@@ -87,6 +87,8 @@ describe("new-stamp requests in the browser", () => {
     const item = keeperPage.locator('li[data-testid^="new-stamp-"]', { hasText: note });
     const thumb = item.getByRole("img", { name: "Sketch of the stamp asked for" });
     await thumb.waitFor();
+    // Thumbnails load lazily: with a long queue this one may start below the fold.
+    await thumb.scrollIntoViewIfNeeded();
     // The thumbnail really loaded from the API (a WebP of the 300 × 200 sketch, long side at most 512 px).
     await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => (img.complete ? img.naturalWidth : 0)), { timeout: 15_000 }).toBe(300);
     await keeperPage.close();

@@ -307,6 +307,7 @@ describe("quality findings on the run page", () => {
     const row = page.getByTestId("finding-row").filter({ hasText: where });
     const thumb = row.getByRole("img", { name: /^Photo of the finding: Unwanted cracks/ });
     await thumb.waitFor();
+    await thumb.scrollIntoViewIfNeeded();
     await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0)).toBe(true);
     const finding = (await getRun()).findings.find((f) => f.location === where)!;
     expect(finding.photoKey).toBeTruthy();
