@@ -2,17 +2,12 @@ import { and, eq } from "drizzle-orm";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { runFindings, runs } from "@/db/schema";
-import { seedMotifs } from "@/scripts/seed/motifs";
-import { seedPlans } from "@/scripts/seed/plans";
-import { seedRuns } from "@/scripts/seed/runs";
-import { seedStamps } from "@/scripts/seed/stamps";
-import { seedUsers } from "@/scripts/seed/users";
-import { seedWax } from "@/scripts/seed/wax";
 import { launchBrowser, signInThroughPage } from "../helpers/browser";
 import { createUser, db } from "../helpers/db";
 import { testEnv } from "../helpers/env";
 import { api, signIn, type Session } from "../helpers/http";
 import { createStampRow, uniquePrefix } from "../helpers/stamps";
+import { seedDemoRuns } from "../helpers/seed";
 
 // The overview in the browser, per role, on the demo data: a keeper sees the stamp the demo run's findings flag
 // and follows its line to the stamp's record (issue 15's done-when); a wax master sees a run at its waxing stage
@@ -28,12 +23,7 @@ let ourColourway: string;
 
 beforeAll(async () => {
   browser = await launchBrowser();
-  await seedUsers(db());
-  await seedStamps(db());
-  await seedWax(db());
-  await seedPlans(db());
-  await seedMotifs(db());
-  await seedRuns(db());
+  await seedDemoRuns();
   const [market] = await db().select({ id: runs.id }).from(runs).where(eq(runs.name, MARKET_RUN));
   const [finding] = await db().select({ code: runFindings.stampCode }).from(runFindings).where(and(eq(runFindings.runId, market.id), eq(runFindings.kind, "pooled"))).limit(1);
   flaggedCode = finding.code!;

@@ -1,12 +1,6 @@
 import type { Browser, Locator, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { runUrls, type RunDto, type RunStageDto } from "@/lib/contracts/runs";
-import { seedMotifs } from "@/scripts/seed/motifs";
-import { seedPlans } from "@/scripts/seed/plans";
-import { seedRuns } from "@/scripts/seed/runs";
-import { seedStamps } from "@/scripts/seed/stamps";
-import { seedUsers } from "@/scripts/seed/users";
-import { seedWax } from "@/scripts/seed/wax";
 import { checkAccessibility } from "../helpers/accessibility";
 import { launchBrowser, signInThroughPage } from "../helpers/browser";
 import { createUser, db } from "../helpers/db";
@@ -15,6 +9,7 @@ import { expectMessageBeside } from "../helpers/forms";
 import { api, signIn, type Session } from "../helpers/http";
 import { seededNoisePng } from "../helpers/scan-images";
 import { uniquePrefix } from "../helpers/stamps";
+import { seedDemoRuns } from "../helpers/seed";
 
 // The run page's record forms on the demo run in work ("Market cream and soga, 30 m"): a wax master records a
 // waxing's day with the pot weighed before and after, a pot reading above the recipe's range (its warnings and
@@ -45,12 +40,7 @@ async function pageAs(user: { email: string; password: string }) {
 }
 
 beforeAll(async () => {
-  await seedUsers(db());
-  await seedStamps(db());
-  await seedWax(db());
-  await seedPlans(db());
-  await seedMotifs(db());
-  await seedRuns(db());
+  await seedDemoRuns();
   browser = await launchBrowser();
   waxmaster = await createUser("waxmaster", undefined, { name: `${prefix} wax master` });
   keeper = await createUser("keeper", undefined, { name: `${prefix} keeper` });

@@ -5,16 +5,11 @@ import { toActor } from "@/lib/authz";
 import { OVERVIEW_ITEMS, overviewSections, type OverviewDto, type OverviewSection } from "@/lib/contracts/overview";
 import { overviewFor, overviewSectionsFor } from "@/lib/data/overview";
 import { can, roles, type Role } from "@/lib/permissions";
-import { seedMotifs } from "@/scripts/seed/motifs";
-import { seedPlans } from "@/scripts/seed/plans";
-import { seedRuns } from "@/scripts/seed/runs";
-import { seedStamps } from "@/scripts/seed/stamps";
-import { seedUsers } from "@/scripts/seed/users";
-import { seedWax } from "@/scripts/seed/wax";
 import { createUser, db } from "../helpers/db";
 import { testEnv } from "../helpers/env";
 import { api, signIn, type Session } from "../helpers/http";
 import { createStampRow, uniquePrefix } from "../helpers/stamps";
+import { seedDemoRuns } from "../helpers/seed";
 
 // The overview per role against the real database with the demo data (scripts/seed): each role gets only the
 // sections of its work (keepers: the shelf, with the stamp the demo findings flag; planners: runs waiting for a
@@ -49,12 +44,7 @@ async function startRun(name: string, extra: Record<string, unknown> = {}) {
 
 beforeAll(async () => {
   testEnv();
-  await seedUsers(db());
-  await seedStamps(db());
-  await seedWax(db());
-  await seedPlans(db());
-  await seedMotifs(db());
-  await seedRuns(db());
+  await seedDemoRuns();
   for (const role of roles) {
     users[role] = await createUser(role);
     sessions[role] = (await signIn(users[role].email, users[role].password))!;

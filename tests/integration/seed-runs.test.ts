@@ -1,14 +1,10 @@
 import { count, eq, inArray } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { runs } from "@/db/schema";
-import { seedMotifs } from "@/scripts/seed/motifs";
-import { seedPlans } from "@/scripts/seed/plans";
 import { seedRuns } from "@/scripts/seed/runs";
-import { seedStamps } from "@/scripts/seed/stamps";
-import { seedUsers } from "@/scripts/seed/users";
-import { seedWax } from "@/scripts/seed/wax";
 import { createUser, db } from "../helpers/db";
 import { api, signIn, type Session } from "../helpers/http";
+import { seedDemoRuns } from "../helpers/seed";
 
 // The demo runs (scripts/seed/runs.ts): four invented runs in four states, added once; the one in work has
 // findings that flag a stamp, and each run's totals are the sums of its stages through the API.
@@ -17,12 +13,7 @@ const names = ["Harbour blues, two kodi of long cloths", "Market cream and soga,
 let reader: Session;
 
 beforeAll(async () => {
-  await seedUsers(db());
-  await seedStamps(db());
-  await seedWax(db());
-  await seedPlans(db());
-  await seedMotifs(db());
-  await seedRuns(db());
+  await seedDemoRuns();
   await seedRuns(db());
   const user = await createUser("keeper");
   reader = (await signIn(user.email, user.password))!;

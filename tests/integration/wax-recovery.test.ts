@@ -1,14 +1,9 @@
 import { sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
-import { seedMotifs } from "@/scripts/seed/motifs";
-import { seedPlans } from "@/scripts/seed/plans";
-import { seedRuns } from "@/scripts/seed/runs";
-import { seedStamps } from "@/scripts/seed/stamps";
-import { seedUsers } from "@/scripts/seed/users";
-import { seedWax } from "@/scripts/seed/wax";
 import { createUser, db } from "../helpers/db";
 import { testEnv } from "../helpers/env";
 import { api, page, signIn, type Session } from "../helpers/http";
+import { seedDemoRuns } from "../helpers/seed";
 
 // The wax estimate form offers the recovery measured at the runs' boil-offs (the demo's finished run has one) as
 // its default recovery %, and says how many boil-offs it comes from; the figure is Σ recovered ÷ Σ used over the
@@ -18,12 +13,7 @@ let waxmaster: Session;
 
 beforeAll(async () => {
   testEnv();
-  await seedUsers(db());
-  await seedStamps(db());
-  await seedWax(db());
-  await seedPlans(db());
-  await seedMotifs(db());
-  await seedRuns(db());
+  await seedDemoRuns();
   const user = await createUser("waxmaster");
   waxmaster = (await signIn(user.email, user.password))!;
 });
