@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { runUrls, type RunDto, type RunStageDto } from "@/lib/contracts/runs";
 import { checkAccessibility } from "../helpers/accessibility";
 import { launchBrowser, signInThroughPage } from "../helpers/browser";
-import { createUser, db } from "../helpers/db";
+import { createUser } from "../helpers/db";
 import { testEnv } from "../helpers/env";
 import { expectMessageBeside } from "../helpers/forms";
 import { api, signIn, type Session } from "../helpers/http";
