@@ -1,5 +1,5 @@
 import { z } from "@/lib/zod";
-import { todayIso } from "@/lib/dates";
+import { latestTodayIso, todayIso } from "@/lib/dates";
 import { boolParam, idParamSchema, isoDate, optionalText, requiredText } from "./common";
 
 // One schema per input of the stamp shelf, shared by forms, server actions, route handlers,
@@ -59,7 +59,7 @@ const fieldShape = {
   /** The mirror twin, by its code; only for face = pair. */
   twinCode: stampCodeSchema.nullable(),
   maker: optionalText(120),
-  madeOn: isoDate.refine((v) => v <= todayIso(), "validation.dateInFuture").nullable(),
+  madeOn: isoDate.refine((v) => v <= latestTodayIso(), "validation.dateInFuture").nullable(),
   condition: z.enum(stampConditions, "validation.invalidOption"),
   locationId: z.uuid("validation.locationUnknown").nullable(),
   coverageRatio: z.number("validation.number").min(0, "validation.coverageRatio").max(1, "validation.coverageRatio").nullable(),

@@ -1,5 +1,5 @@
 import { z } from "@/lib/zod";
-import { todayIso } from "@/lib/dates";
+import { latestTodayIso } from "@/lib/dates";
 import { issueKey } from "@/lib/errors";
 import {
   NAME_MAX_CHARS,
@@ -221,7 +221,7 @@ export const recordWaxUseSchema = z
       recipeId: uuid("wax.recipeUnknown"),
       waxedAreaPerMetreM2: useShape.waxedAreaPerMetreM2.optional(),
       planId: uuid("wax.planUnknown").optional(),
-      usedOn: isoDate.refine((v) => v <= todayIso(), "validation.dateInFuture"),
+      usedOn: isoDate.refine((v) => v <= latestTodayIso(), "validation.dateInFuture"),
       cloth: clothText.optional(),
       stampCode: z.string(keyed).trim().toUpperCase().min(1, keyed).max(64, keyed).optional(),
       impressions: z.number("validation.impressions").int("validation.impressions").min(1, "validation.impressions").max(1_000_000, "validation.impressions").optional(),

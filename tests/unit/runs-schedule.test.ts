@@ -46,3 +46,12 @@ describe("daysOverlap", () => {
     expect(daysOverlap("2026-03-04", "2026-03-04", "2026-03-01", "2026-03-10")).toBe(true);
   });
 });
+
+describe("latestTodayIso", () => {
+  it("is the calendar day at UTC+14: 10:00 UTC is already the next day there, 09:59 is not", async () => {
+    const { latestTodayIso } = await import("@/lib/dates");
+    // By hand: 2026-12-02T10:00Z + 14 h = 2026-12-03T00:00 at UTC+14.
+    expect(latestTodayIso(new Date("2026-12-02T10:00:00Z"))).toBe("2026-12-03");
+    expect(latestTodayIso(new Date("2026-12-02T09:59:59Z"))).toBe("2026-12-02");
+  });
+});

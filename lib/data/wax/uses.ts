@@ -11,6 +11,7 @@ import { addImpressions, type ImpressionsToAdd } from "../stamps/impressions";
 import { planForWax } from "./plans";
 import { loadRecipes } from "./shared";
 import { audit } from "@/lib/log";
+import { workshopToday } from "../settings";
 
 // Wax uses: what one waxing actually used. Recording one takes its wax out of stock (a "use" movement per material
 // of the recipe, by mass share) and adds its impressions to the stamps through the one writer of impression
@@ -83,6 +84,8 @@ export async function getWaxUse(actor: Actor, id: string): Promise<WaxUseDto> {
  */
 export async function recordWaxUse(actor: Actor, input: RecordWaxUseInput): Promise<WaxUseDto> {
   assertCan(actor, "wax:write");
+  // The schema refuses only days future everywhere; a wax use's day is the workshop's calendar day.
+  if (input.usedOn > (await workshopToday())) throw new AppError("unprocessable", {}, { usedOn: ["validation.dateInFuture"] });
   const plan = input.planId ? await planForWax(actor, input.planId) : null;
   if (input.planId && !plan) throw new AppError("unprocessable", {}, { planId: ["wax.planUnknown"] });
   const id = await db.transaction(async (tx) => {
